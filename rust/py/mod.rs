@@ -1,0 +1,15 @@
+//! PyO3 bindings: conversions only, one file per kernel module.
+mod crystal;
+mod errors;
+mod run;
+mod schur;
+mod tableau;
+
+use pyo3::prelude::*;
+
+pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
+    tableau::register(m)?;
+    crystal::register(m)?;
+    schur::register(m)?;
+    Ok(())
+}

@@ -11,6 +11,7 @@ use std::collections::HashMap;
 
 /// Checks that each array of `f` has `count` entries, each -1 or a vertex index.
 pub fn check_arrays(f: &[&[i64]], count: usize, name: &str) -> Result<(), Error> {
+    let top = i64::try_from(count).map_err(|_| Error::invalid("too many vertices"))?;
     for (k, fi) in f.iter().enumerate() {
         if fi.len() != count {
             return Err(Error::invalid(format!(
@@ -19,7 +20,7 @@ pub fn check_arrays(f: &[&[i64]], count: usize, name: &str) -> Result<(), Error>
                 fi.len()
             )));
         }
-        if let Some((v, &t)) = fi.iter().enumerate().find(|&(_, &t)| t < -1 || t >= count as i64) {
+        if let Some((v, &t)) = fi.iter().enumerate().find(|&(_, &t)| t < -1 || t >= top) {
             return Err(Error::invalid(format!(
                 "{name}[{}] entries must be -1 or a vertex in 0..{count}; vertex {v} has {t}",
                 k + 1
@@ -45,10 +46,16 @@ pub fn string_steps(next: &[i64]) -> Result<Vec<i32>, Error> {
             }
             v = usize::try_from(t).expect("checked non-negative");
             if path.len() > next.len() {
-                return Err(Error::invalid(format!("operator arrays contain a cycle through vertex {start}")));
+                return Err(Error::invalid(format!(
+                    "operator arrays contain a cycle through vertex {start}"
+                )));
             }
         }
-        let mut s = if next[v] < 0 && steps[v] == UNSET { -1 } else { steps[v] };
+        let mut s = if next[v] < 0 && steps[v] == UNSET {
+            -1
+        } else {
+            steps[v]
+        };
         while let Some(u) = path.pop() {
             s += 1;
             steps[u] = s;
@@ -61,24 +68,26 @@ pub fn string_steps(next: &[i64]) -> Result<Vec<i32>, Error> {
 pub fn sources(ops: &[&[i64]], count: usize) -> Vec<i64> {
     (0..count)
         .filter(|&v| ops.iter().all(|o| o[v] < 0))
-        .map(|v| v as i64)
+        .map(|v| i64::try_from(v).expect("vertex counts fit i64"))
         .collect()
 }
 
+fn root(parent: &mut [usize], mut v: usize) -> usize {
+    while parent[v] != v {
+        parent[v] = parent[parent[v]]; // path halving
+        v = parent[v];
+    }
+    v
+}
+
 /// Connected components: label per vertex, components numbered by their smallest vertex.
+/// `f` must have passed `check_arrays`.
 pub fn components(f: &[&[i64]], count: usize) -> Vec<i64> {
     let mut parent: Vec<usize> = (0..count).collect();
-    fn root(parent: &mut [usize], mut v: usize) -> usize {
-        while parent[v] != v {
-            parent[v] = parent[parent[v]];
-            v = parent[v];
-        }
-        v
-    }
     for fi in f {
         for (v, &t) in fi.iter().enumerate() {
-            if t >= 0 {
-                let (a, b) = (root(&mut parent, v), root(&mut parent, t as usize));
+            if let Ok(t) = usize::try_from(t) {
+                let (a, b) = (root(&mut parent, v), root(&mut parent, t));
                 let (lo, hi) = if a < b { (a, b) } else { (b, a) };
                 parent[hi] = lo; // the smaller vertex stays root, so roots are component minima
             }
@@ -105,7 +114,10 @@ pub fn character(
     mask: Option<&[bool]>,
     job: &Job,
 ) -> Result<(Vec<i32>, Vec<u64>), Error> {
-    let count = if n == 0 { mask.map_or(0, <[bool]>::len) } else { weights.len() / n };
+    let count = weights
+        .len()
+        .checked_div(n)
+        .unwrap_or_else(|| mask.map_or(0, <[bool]>::len));
     if let Some(m) = mask {
         if m.len() != count {
             return Err(Error::invalid(format!(
@@ -117,7 +129,11 @@ pub fn character(
     let keep = |v: usize| mask.is_none_or(|m| m[v]);
     if n == 0 {
         let total = (0..count).filter(|&v| keep(v)).count() as u64;
-        return Ok(if total > 0 { (vec![], vec![total]) } else { (vec![], vec![]) });
+        return Ok(if total > 0 {
+            (vec![], vec![total])
+        } else {
+            (vec![], vec![])
+        });
     }
     let rows: Vec<&[i32]> = weights.chunks_exact(n).collect();
     let tally = rows

@@ -9,6 +9,7 @@ pub mod schur;
 pub mod tableau;
 
 #[cfg(feature = "python")]
+#[allow(clippy::needless_pass_by_value)] // PyO3 hands extracted arguments over by value
 mod py;
 
 #[cfg(feature = "python")]

@@ -5,10 +5,9 @@ use crate::error::Error;
 
 /// Checks that `parts` is a partition (weakly decreasing) and drops trailing zeros.
 pub fn normalize(parts: &[usize], name: &str) -> Result<Vec<usize>, Error> {
-    if let Some(w) = parts.windows(2).find(|w| w[0] < w[1]) {
+    if let Some(&[a, b]) = parts.windows(2).find(|w| w[0] < w[1]) {
         return Err(Error::invalid(format!(
-            "{name} must be weakly decreasing; got {parts:?} ({} before {})",
-            w[0], w[1]
+            "{name} must be weakly decreasing; got {parts:?} ({a} before {b})"
         )));
     }
     let len = parts.iter().rposition(|&p| p > 0).map_or(0, |i| i + 1);
@@ -21,7 +20,8 @@ pub fn normalize(parts: &[usize], name: &str) -> Result<Vec<usize>, Error> {
 #[derive(Debug, Clone)]
 pub struct SubShapes {
     shape: Vec<usize>,
-    offset: Vec<Vec<u64>>,
+    offset: Vec<u64>, // row j's entries start at start[j]; one flat table keeps look-ups to one load
+    start: Vec<usize>,
     count: u64,
 }
 
@@ -32,26 +32,33 @@ impl SubShapes {
         let mut tails = vec![vec![1u64; shape.first().map_or(1, |&p| p + 1)]; rows + 1];
         for j in (0..rows).rev() {
             let mut acc = 0u64;
-            for a in 0..tails[j].len() {
+            let (this, next) = tails.split_at_mut(j + 1);
+            for (a, slot) in this[j].iter_mut().enumerate() {
                 if a <= shape[j] {
-                    acc = acc.checked_add(tails[j + 1][a]).ok_or_else(too_many)?;
+                    acc = acc.checked_add(next[0][a]).ok_or_else(too_many)?;
                 }
-                tails[j][a] = acc;
+                *slot = acc;
             }
         }
-        let offset = (0..rows)
-            .map(|j| {
-                let mut row = Vec::with_capacity(shape[j] + 1);
-                let mut acc = 0u64;
-                for a in 0..=shape[j] {
-                    row.push(acc);
-                    acc += tails[j + 1][a];
-                }
-                row
-            })
-            .collect();
-        let count = tails[0].get(shape.first().copied().unwrap_or(0)).copied().unwrap_or(1);
-        Ok(SubShapes { shape: shape.to_vec(), offset, count })
+        let (mut offset, mut start) = (Vec::new(), Vec::with_capacity(rows));
+        for j in 0..rows {
+            start.push(offset.len());
+            let mut acc = 0u64;
+            for &tail in &tails[j + 1][..=shape[j]] {
+                offset.push(acc);
+                acc += tail;
+            }
+        }
+        let count = tails[0]
+            .get(shape.first().copied().unwrap_or(0))
+            .copied()
+            .unwrap_or(1);
+        Ok(SubShapes {
+            shape: shape.to_vec(),
+            offset,
+            start,
+            count,
+        })
     }
 
     /// Number of partitions inside the shape, the empty one included.
@@ -63,16 +70,17 @@ impl SubShapes {
     pub fn id(&self, mu: &[u16]) -> usize {
         let mut id = 0u64;
         for (j, &m) in mu.iter().enumerate().take(self.shape.len()) {
-            id += self.offset[j][m as usize];
+            id += self.offset[self.start[j] + usize::from(m)];
         }
         usize::try_from(id).expect("ids are below count, which fits memory")
     }
 
     /// Change of `id` when part `j` goes from `from` to `to`.
     #[inline]
-    #[allow(clippy::cast_possible_wrap)]
+    #[allow(clippy::cast_possible_wrap, clippy::cast_possible_truncation)] // ids are below count, which fits memory
     pub fn id_delta(&self, j: usize, from: u16, to: u16) -> isize {
-        self.offset[j][to as usize] as isize - self.offset[j][from as usize] as isize
+        let row = &self.offset[self.start[j]..];
+        row[usize::from(to)] as isize - row[usize::from(from)] as isize
     }
 
     /// All partitions inside the shape, in id order, each padded with zeros to the shape's length.

@@ -4,7 +4,7 @@ from druse.crystal import Crystal, TableauCrystal, crystal
 from druse.errors import InternalError, TooLargeError
 from druse.poly import Poly
 from druse.schur import kostka, schur
-from druse.tableaux import count_tableaux, iter_tableaux
+from druse.tableaux import count_by_enumeration, count_tableaux, iter_tableaux
 
 __all__ = [
     "Crystal",
@@ -12,6 +12,7 @@ __all__ = [
     "Poly",
     "TableauCrystal",
     "TooLargeError",
+    "count_by_enumeration",
     "count_tableaux",
     "crystal",
     "iter_tableaux",

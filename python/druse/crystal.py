@@ -246,10 +246,12 @@ class TableauCrystal(Crystal):
     def operator_tables(self) -> None:
         """Compute f_i, e_i, phi_i, epsilon_i for every i in one pass (faster than one i at a time)."""
         check_budget(self._size * (self._n - 1) * 24, "operator tables", "ask for single f(i)")
-        f, e, phi, eps = self._model.operator_tables(self._cells)
-        for i in range(1, self._n):
-            self._f[i], self._e[i] = _frozen(f[i - 1]), _frozen(e[i - 1])
-            self._phi[i], self._eps[i] = _frozen(phi[i - 1]), _frozen(eps[i - 1])
+        for i, arrays in enumerate(self._model.operator_tables(self._cells), start=1):
+            self._store(i, *arrays)
+
+    def _store(self, i: int, f: IntArray, e: IntArray, phi: SmallIntArray, eps: SmallIntArray) -> None:
+        self._f[i], self._e[i] = _frozen(f), _frozen(e)
+        self._phi[i], self._eps[i] = _frozen(phi), _frozen(eps)
 
     def highest_weight(self) -> int:
         """The vertex of the tableau whose row r is filled with r (the highest weight vertex)."""
@@ -259,7 +261,8 @@ class TableauCrystal(Crystal):
 
     def _compute_operators(self, i: int) -> tuple[IntArray, IntArray]:
         check_budget(self._size * _OPERATOR_BYTES, f"f_{i} and e_{i}", "stream with iter_tableaux")
-        f, e = self._model.operators(self._cells, i)
+        f, e, phi, eps = self._model.operator(self._cells, i)
+        self._phi[i], self._eps[i] = _frozen(phi), _frozen(eps)  # free with the targets
         return f, e
 
     def _compute_string_lengths(self, i: int) -> tuple[SmallIntArray, SmallIntArray]:

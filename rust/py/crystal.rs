@@ -3,27 +3,41 @@ use super::run::{run_detached, run_quick};
 use crate::crystal;
 use crate::error::Error;
 use numpy::ndarray::Array2;
-use numpy::{IntoPyArray, PyArray1, PyArray2, PyReadonlyArray1, PyReadonlyArray2, PyUntypedArrayMethods};
+use numpy::{
+    IntoPyArray, PyArray1, PyArray2, PyReadonlyArray1, PyReadonlyArray2, PyUntypedArrayMethods,
+};
 use pyo3::prelude::*;
 
 fn slices<'a>(arrays: &'a [PyReadonlyArray1<'_, i64>]) -> PyResult<Vec<&'a [i64]>> {
     arrays
         .iter()
-        .map(|a| a.as_slice().map_err(|_| Error::invalid("operator arrays must be contiguous").into()))
+        .map(|a| {
+            a.as_slice()
+                .map_err(|_| Error::invalid("operator arrays must be contiguous").into())
+        })
         .collect()
 }
 
 /// Length of the string from each vertex along `next` (f_i gives phi_i, e_i gives epsilon_i).
 #[pyfunction]
-fn string_steps<'py>(py: Python<'py>, next: PyReadonlyArray1<'py, i64>) -> PyResult<Bound<'py, PyArray1<i32>>> {
-    let s = next.as_slice().map_err(|_| Error::invalid("operator array must be contiguous"))?;
+fn string_steps<'py>(
+    py: Python<'py>,
+    next: PyReadonlyArray1<'py, i64>,
+) -> PyResult<Bound<'py, PyArray1<i32>>> {
+    let s = next
+        .as_slice()
+        .map_err(|_| Error::invalid("operator array must be contiguous"))?;
     crystal::check_arrays(&[s], s.len(), "operator")?;
     Ok(run_detached(py, |_| crystal::string_steps(s))?.into_pyarray(py))
 }
 
 /// Vertices on which every operator of `ops` is undefined (-1), ascending.
 #[pyfunction]
-fn sources<'py>(py: Python<'py>, ops: Vec<PyReadonlyArray1<'py, i64>>, count: usize) -> PyResult<Bound<'py, PyArray1<i64>>> {
+fn sources<'py>(
+    py: Python<'py>,
+    ops: Vec<PyReadonlyArray1<'py, i64>>,
+    count: usize,
+) -> PyResult<Bound<'py, PyArray1<i64>>> {
     let s = slices(&ops)?;
     crystal::check_arrays(&s, count, "operator")?;
     Ok(run_detached(py, |_| Ok(crystal::sources(&s, count)))?.into_pyarray(py))
@@ -31,7 +45,11 @@ fn sources<'py>(py: Python<'py>, ops: Vec<PyReadonlyArray1<'py, i64>>, count: us
 
 /// Component label of each vertex, components numbered by their smallest vertex.
 #[pyfunction]
-fn components<'py>(py: Python<'py>, ops: Vec<PyReadonlyArray1<'py, i64>>, count: usize) -> PyResult<Bound<'py, PyArray1<i64>>> {
+fn components<'py>(
+    py: Python<'py>,
+    ops: Vec<PyReadonlyArray1<'py, i64>>,
+    count: usize,
+) -> PyResult<Bound<'py, PyArray1<i64>>> {
     let s = slices(&ops)?;
     crystal::check_arrays(&s, count, "operator")?;
     Ok(run_detached(py, |_| Ok(crystal::components(&s, count)))?.into_pyarray(py))
@@ -46,21 +64,34 @@ fn character<'py>(
     mask: Option<PyReadonlyArray1<'py, bool>>,
 ) -> PyResult<(Bound<'py, PyArray2<i64>>, Vec<u64>)> {
     let n = weights.shape()[1];
-    let w = weights.as_slice().map_err(|_| Error::invalid("weights must be C-contiguous"))?;
+    let w = weights
+        .as_slice()
+        .map_err(|_| Error::invalid("weights must be C-contiguous"))?;
     let m = match &mask {
-        Some(a) => Some(a.as_slice().map_err(|_| Error::invalid("mask must be contiguous"))?),
+        Some(a) => Some(
+            a.as_slice()
+                .map_err(|_| Error::invalid("mask must be contiguous"))?,
+        ),
         None => None,
     };
     let count = weights.shape()[0];
     let (exps, coeffs) = if n == 0 {
         let kept = m.map_or(count, |m| m.iter().filter(|&&b| b).count()) as u64;
-        run_quick(|| Ok(if kept > 0 { (vec![], vec![kept]) } else { (vec![], vec![]) }))?
+        run_quick(|| {
+            Ok(if kept > 0 {
+                (vec![], vec![kept])
+            } else {
+                (vec![], vec![])
+            })
+        })?
     } else {
         run_detached(py, |job| crystal::character(w, n, m, job))?
     };
     let terms = coeffs.len();
     let exps: Vec<i64> = exps.into_iter().map(i64::from).collect();
-    let arr = Array2::from_shape_vec((terms, n), exps).expect("terms * n exponents").into_pyarray(py);
+    let arr = Array2::from_shape_vec((terms, n), exps)
+        .expect("terms * n exponents")
+        .into_pyarray(py);
     Ok((arr, coeffs))
 }
 

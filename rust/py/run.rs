@@ -25,7 +25,10 @@ pub fn run_detached<T: Send>(
             });
             while let Err(RecvTimeoutError::Timeout) = rx.recv_timeout(TICK) {
                 if interrupt.is_none() {
-                    interrupt = Python::attach(|py| py.check_signals()).err();
+                    #[allow(clippy::redundant_closure_for_method_calls)]
+                    // the method is not general over lifetimes
+                    let signals = Python::attach(|py| py.check_signals());
+                    interrupt = signals.err();
                     job.set_stop(interrupt.is_some());
                 }
             }

@@ -12,22 +12,39 @@ pub struct TableauModel {
     model: Model,
 }
 
-fn array2<T: numpy::Element>(py: Python<'_>, rows: usize, cols: usize, v: Vec<T>) -> Bound<'_, PyArray2<T>> {
-    Array2::from_shape_vec((rows, cols), v).expect("kernels return rows * cols values").into_pyarray(py)
+fn array2<T: numpy::Element>(
+    py: Python<'_>,
+    rows: usize,
+    cols: usize,
+    v: Vec<T>,
+) -> Bound<'_, PyArray2<T>> {
+    Array2::from_shape_vec((rows, cols), v)
+        .expect("kernels return rows * cols values")
+        .into_pyarray(py)
 }
 
-/// Splits interleaved pairs (a0, b0, a1, b1, ...) into two arrays.
-fn unzip<'py, T: numpy::Element + Copy>(
-    py: Python<'py>,
-    v: &[T],
-) -> (Bound<'py, PyArray1<T>>, Bound<'py, PyArray1<T>>) {
-    let a: Vec<T> = v.iter().step_by(2).copied().collect();
-    let b: Vec<T> = v.iter().skip(1).step_by(2).copied().collect();
-    (a.into_pyarray(py), b.into_pyarray(py))
+type Lengths<'py> = (Bound<'py, PyArray1<i32>>, Bound<'py, PyArray1<i32>>);
+
+type Arrays4<'py> = (
+    Bound<'py, PyArray1<i64>>,
+    Bound<'py, PyArray1<i64>>,
+    Bound<'py, PyArray1<i32>>,
+    Bound<'py, PyArray1<i32>>,
+);
+
+fn to_numpy(py: Python<'_>, op: tableau::Operator) -> Arrays4<'_> {
+    (
+        op.f.into_pyarray(py),
+        op.e.into_pyarray(py),
+        op.phi.into_pyarray(py),
+        op.eps.into_pyarray(py),
+    )
 }
 
 fn cells<'a>(arr: &'a PyReadonlyArray2<'_, u8>) -> PyResult<&'a [u8]> {
-    Ok(arr.as_slice().map_err(|_| Error::invalid("tableau array must be C-contiguous"))?)
+    Ok(arr
+        .as_slice()
+        .map_err(|_| Error::invalid("tableau array must be C-contiguous"))?)
 }
 
 #[pymethods]
@@ -50,13 +67,25 @@ impl TableauModel {
     fn enumerate<'py>(&self, py: Python<'py>) -> PyResult<Bound<'py, PyArray2<u8>>> {
         let m = &self.model;
         let flat = run_detached(py, |job| tableau::fill(m, job))?;
-        Ok(array2(py, usize::try_from(m.count()).unwrap_or(0), m.cells, flat))
+        Ok(array2(
+            py,
+            usize::try_from(m.count()).unwrap_or(0),
+            m.cells,
+            flat,
+        ))
     }
 
     /// Tableaux start .. start + count, for streaming.
-    fn chunk<'py>(&self, py: Python<'py>, start: u64, count: usize) -> PyResult<Bound<'py, PyArray2<u8>>> {
+    fn chunk<'py>(
+        &self,
+        py: Python<'py>,
+        start: u64,
+        count: usize,
+    ) -> PyResult<Bound<'py, PyArray2<u8>>> {
         let m = &self.model;
-        let len = usize::try_from(m.count().saturating_sub(start)).unwrap_or(usize::MAX).min(count);
+        let len = usize::try_from(m.count().saturating_sub(start))
+            .unwrap_or(usize::MAX)
+            .min(count);
         let flat = run_detached(py, |_| {
             let mut out = vec![0u8; len * m.cells];
             tableau::walk_range(m, start, &mut out)?;
@@ -92,52 +121,44 @@ impl TableauModel {
         py: Python<'py>,
         tableaux: PyReadonlyArray2<'py, u8>,
         i: usize,
-    ) -> PyResult<(Bound<'py, PyArray1<i32>>, Bound<'py, PyArray1<i32>>)> {
+    ) -> PyResult<Lengths<'py>> {
         let (m, t) = (&self.model, cells(&tableaux)?);
-        let v = run_detached(py, |job| tableau::string_lengths(m, t, i, job))?;
-        Ok(unzip(py, &v))
+        let op = run_detached(py, |job| tableau::operator(m, t, i, false, job))?;
+        Ok((op.phi.into_pyarray(py), op.eps.into_pyarray(py)))
     }
 
-    /// (f_i, e_i) targets of every vertex.
-    fn operators<'py>(
+    /// (f_i, e_i, phi_i, epsilon_i) of every vertex.
+    fn operator<'py>(
         &self,
         py: Python<'py>,
         tableaux: PyReadonlyArray2<'py, u8>,
         i: usize,
-    ) -> PyResult<(Bound<'py, PyArray1<i64>>, Bound<'py, PyArray1<i64>>)> {
+    ) -> PyResult<Arrays4<'py>> {
         let (m, t) = (&self.model, cells(&tableaux)?);
-        let v = run_detached(py, |job| tableau::operators(m, t, i, job))?;
-        Ok(unzip(py, &v))
+        let op = run_detached(py, |job| tableau::operator(m, t, i, true, job))?;
+        Ok(to_numpy(py, op))
     }
 
-    /// f, e, phi, epsilon for all i at once: four (n-1, N) arrays.
-    #[allow(clippy::type_complexity)]
+    /// The same for every i = 1..n-1, computed in parallel over i.
     fn operator_tables<'py>(
         &self,
         py: Python<'py>,
         tableaux: PyReadonlyArray2<'py, u8>,
-    ) -> PyResult<(
-        Bound<'py, PyArray2<i64>>,
-        Bound<'py, PyArray2<i64>>,
-        Bound<'py, PyArray2<i32>>,
-        Bound<'py, PyArray2<i32>>,
-    )> {
+    ) -> PyResult<Vec<Arrays4<'py>>> {
         let (m, t) = (&self.model, cells(&tableaux)?);
-        let tables = run_detached(py, |job| tableau::operator_tables(m, t, job))?;
-        let (ops, count) = (m.n.saturating_sub(1), tables.count);
-        Ok((
-            array2(py, ops, count, tables.f),
-            array2(py, ops, count, tables.e),
-            array2(py, ops, count, tables.phi),
-            array2(py, ops, count, tables.eps),
-        ))
+        let ops = run_detached(py, |job| tableau::operator_tables(m, t, job))?;
+        Ok(ops.into_iter().map(|op| to_numpy(py, op)).collect())
     }
 
     /// Weights (N, n): the number of entries equal to k in each tableau.
-    fn weights<'py>(&self, py: Python<'py>, tableaux: PyReadonlyArray2<'py, u8>) -> PyResult<Bound<'py, PyArray2<i32>>> {
+    fn weights<'py>(
+        &self,
+        py: Python<'py>,
+        tableaux: PyReadonlyArray2<'py, u8>,
+    ) -> PyResult<Bound<'py, PyArray2<i32>>> {
         let (m, t) = (&self.model, cells(&tableaux)?);
         let v = run_detached(py, |job| tableau::weights(m, t, job))?;
-        let count = if m.n == 0 { 0 } else { v.len() / m.n };
+        let count = v.len().checked_div(m.n).unwrap_or(0);
         Ok(array2(py, count, m.n, v))
     }
 }

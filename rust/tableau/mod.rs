@@ -15,7 +15,7 @@ mod ops;
 mod tables;
 mod walk;
 
-pub use ops::{operator_tables, operators, string_lengths, weights, OperatorTables};
+pub use ops::{operator, operator_tables, signature, weights, Operator, Signature};
 pub use tables::Model;
 pub use walk::{fill, fill_range as walk_range, scan, Walker};
 
@@ -23,6 +23,11 @@ pub use walk::{fill, fill_range as walk_range, scan, Walker};
 pub const MAX_N: usize = 255;
 
 #[cfg(test)]
+#[allow(
+    clippy::cast_possible_truncation,
+    clippy::cast_sign_loss,
+    clippy::cast_possible_wrap
+)]
 mod tests {
     use super::*;
     use crate::job::Job;
@@ -40,7 +45,16 @@ mod tests {
         num / den
     }
 
-    const SHAPES: &[&[usize]] = &[&[], &[1], &[3], &[2, 1], &[3, 1, 1], &[2, 2, 1], &[4, 3, 1], &[3, 3, 3]];
+    const SHAPES: &[&[usize]] = &[
+        &[],
+        &[1],
+        &[3],
+        &[2, 1],
+        &[3, 1, 1],
+        &[2, 2, 1],
+        &[4, 3, 1],
+        &[3, 3, 3],
+    ];
 
     #[test]
     fn counts_match_hook_content() {
@@ -52,7 +66,10 @@ mod tests {
             }
         }
         // Counts past 2^32: (8,8) with n = 15 (PERFORMANCE-NOTES pitfall), checked by hook-content.
-        assert_eq!(u128::from(Model::new(&[8, 8], 15).unwrap().count()), hook_content(&[8, 8], 15));
+        assert_eq!(
+            u128::from(Model::new(&[8, 8], 15).unwrap().count()),
+            hook_content(&[8, 8], 15)
+        );
     }
 
     #[test]
@@ -80,23 +97,23 @@ mod tests {
     fn operators_are_partial_inverses() {
         let m = Model::new(&[3, 2, 1], 4).unwrap();
         let all = fill(&m, &Job::default()).unwrap();
-        let t = operator_tables(&m, &all, &Job::default()).unwrap();
-        let n = t.count;
-        for i in 0..3 {
-            for v in 0..n {
-                let f = t.f[i * n + v];
+        let tables = operator_tables(&m, &all, &Job::default()).unwrap();
+        // 64 = hook-content count of (3,2,1) with n = 4 (Stanley, EC2, Cor. 7.21.4).
+        assert_eq!(tables[0].f.len(), 64);
+        for (i, op) in tables.iter().enumerate() {
+            for (v, &f) in op.f.iter().enumerate() {
                 if f >= 0 {
-                    assert_eq!(t.e[i * n + f as usize], v as i64);
+                    assert_eq!(op.e[f as usize], v as i64);
+                    assert_eq!(op.phi[f as usize], op.phi[v] - 1);
                 }
             }
-            let single = operators(&m, &all, i + 1, &Job::default()).unwrap();
-            for v in 0..n {
-                assert_eq!(single[2 * v], t.f[i * n + v]);
-                assert_eq!(single[2 * v + 1], t.e[i * n + v]);
-            }
+            let lengths = operator(&m, &all, i + 1, false, &Job::default()).unwrap();
+            assert_eq!(
+                (lengths.phi.as_slice(), lengths.eps.as_slice()),
+                (op.phi.as_slice(), op.eps.as_slice())
+            );
+            assert!(lengths.f.is_empty());
         }
-        // 64 = hook-content count of (3,2,1) with n = 4 (Stanley, EC2, Cor. 7.21.4).
-        assert_eq!(n, 64);
     }
 
     #[test]
@@ -106,6 +123,23 @@ mod tests {
         assert_eq!(&all[..5], &[1, 1, 1, 2, 2]);
         // lowest weight: weight lambda reversed, (0, 0, 2, 3)
         assert_eq!(&all[all.len() - 5..], &[3, 3, 4, 4, 4]);
+    }
+
+    #[test]
+    fn parallel_blocks_join_up() {
+        // (4,2,1), n = 8: more than two blocks of the parallel fill
+        let m = Model::new(&[4, 2, 1], 8).unwrap();
+        let all = fill(&m, &Job::default()).unwrap();
+        assert_eq!(all.len() as u64, m.count() * 7);
+        for (v, t) in all.chunks(7).enumerate().step_by(101) {
+            assert_eq!(m.rank(t).unwrap(), v as u64);
+        }
+        let mut walker = Walker::at(&m, 0).unwrap();
+        let mut steps = 1;
+        while walker.advance().is_some() {
+            steps += 1;
+        }
+        assert_eq!(steps, m.count());
     }
 
     #[test]

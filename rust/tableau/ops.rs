@@ -9,6 +9,7 @@
 //! counts the entries <= k of row r.
 #![deny(unsafe_code)]
 
+use super::tables::Level;
 use super::Model;
 use crate::error::Error;
 use crate::job::Job;
@@ -48,47 +49,86 @@ pub fn signature(kappa: &[u16], mu: &[u16], nu: &[u16], rows: usize) -> Signatur
         }
         open_i = open_i - paired + a;
     }
-    Signature { phi, eps: open, f_row, e_row }
-}
-
-/// Index of the tableau whose level-i shape is mu with part r moved by `step` (+1 or -1), all
-/// other levels unchanged, given the index `v` of the tableau with levels (kappa, mu, nu).
-#[inline]
-#[allow(clippy::cast_possible_wrap, clippy::cast_sign_loss)]
-fn moved(m: &Model, v: u64, i: usize, lv: [&[u16]; 3], r: usize, up: bool, tmp: &mut [u16]) -> i64 {
-    let [kappa, mu, nu] = lv;
-    tmp.copy_from_slice(mu);
-    tmp[r] = if up { mu[r] + 1 } else { mu[r] - 1 };
-    let nu_id = m.sub.id(nu);
-    let mu_id = m.sub.id(mu);
-    let new_id = (mu_id as isize + m.sub.id_delta(r, mu[r], tmp[r])) as usize;
-    let before = m.offset(i + 1, nu_id, nu, mu) + m.offset(i, mu_id, mu, kappa);
-    let after = m.offset(i + 1, nu_id, nu, tmp) + m.offset(i, new_id, tmp, kappa);
-    (v + after - before) as i64
-}
-
-/// Counts per row of the entries <= k, for k = i-1, i, i+1 (rows past i hold none).
-#[inline]
-fn three_levels(m: &Model, t: &[u8], i: usize, out: &mut [u16]) {
-    let w = m.rows + 1;
-    out.fill(0);
-    #[allow(clippy::cast_possible_truncation)]
-    let (lo, mid, hi) = ((i - 1) as u8, i as u8, (i + 1) as u8);
-    for r in 0..m.rows.min(i + 1) {
-        let row = &t[m.row_start[r]..m.row_start[r + 1]];
-        let count = |v: u8| row.iter().filter(|&&x| x <= v).count() as u16;
-        (out[r], out[w + r], out[2 * w + r]) = (count(lo), count(mid), count(hi));
+    Signature {
+        phi,
+        eps: open,
+        f_row,
+        e_row,
     }
 }
 
+/// The levels around i of one tableau and what the rank differences need of them.
+struct Around<'a> {
+    upper: Level<'a>,
+    lower: Level<'a>,
+    kappa: &'a [u16],
+    mu: &'a [u16],
+    nu: &'a [u16],
+    mu_id: usize,
+    nu_id: usize,
+    before: u64,
+}
+
+impl<'a> Around<'a> {
+    #[inline]
+    fn new(m: &'a Model, i: usize, kappa: &'a [u16], mu: &'a [u16], nu: &'a [u16]) -> Self {
+        let (upper, lower) = (m.level(i + 1), m.level(i));
+        let (mu_id, nu_id) = (m.sub.id(mu), m.sub.id(nu));
+        let before = upper.offset(nu_id, nu, mu) + lower.offset(mu_id, mu, kappa);
+        Around {
+            upper,
+            lower,
+            kappa,
+            mu,
+            nu,
+            mu_id,
+            nu_id,
+            before,
+        }
+    }
+
+    /// Index of the tableau whose level-i shape is mu with part r moved by one (up: +1), all other
+    /// levels unchanged, given the index `v` of this one. Only the level-i and level-(i+1) rank
+    /// terms change.
+    #[inline]
+    #[allow(clippy::cast_possible_wrap, clippy::cast_sign_loss)]
+    fn moved(&self, m: &Model, v: u64, r: usize, up: bool, tmp: &mut [u16]) -> i64 {
+        tmp.copy_from_slice(self.mu);
+        tmp[r] = if up { self.mu[r] + 1 } else { self.mu[r] - 1 };
+        let new_id = (self.mu_id as isize + m.sub.id_delta(r, self.mu[r], tmp[r])) as usize;
+        let after = self.upper.offset(self.nu_id, self.nu, tmp)
+            + self.lower.offset(new_id, tmp, self.kappa);
+        (v + after - self.before) as i64
+    }
+}
+
+/// Counts per row of the entries <= k, for k = i-1, i, i+1 (rows past i hold none), in one pass.
 #[inline]
-fn narrow(x: u32) -> i32 {
-    i32::try_from(x).expect("string lengths are at most the number of cells")
+fn three_levels(m: &Model, t: &[u8], i: usize, out: &mut [u16]) {
+    let w = m.rows + 1;
+    #[allow(clippy::cast_possible_truncation)]
+    let (lo, mid, hi) = ((i - 1) as u8, i as u8, (i + 1) as u8);
+    let used = m.rows.min(i + 1);
+    for r in 0..used {
+        let (mut a, mut b, mut c) = (0u16, 0u16, 0u16);
+        for &x in &t[m.row_start[r]..m.row_start[r + 1]] {
+            a += u16::from(x <= lo);
+            b += u16::from(x <= mid);
+            c += u16::from(x <= hi);
+        }
+        (out[r], out[w + r], out[2 * w + r]) = (a, b, c);
+    }
+    for r in used..w {
+        (out[r], out[w + r], out[2 * w + r]) = (0, 0, 0);
+    }
 }
 
 fn check_i(m: &Model, i: usize) -> Result<(), Error> {
     if i == 0 || i >= m.n {
-        return Err(Error::invalid(format!("i must be in 1..{}; got {i}", m.n.saturating_sub(1))));
+        return Err(Error::invalid(format!(
+            "i must be in 1..{}; got {i}",
+            m.n.saturating_sub(1)
+        )));
     }
     Ok(())
 }
@@ -107,100 +147,128 @@ fn vertex_count(m: &Model, cells: &[u8]) -> Result<usize, Error> {
     Ok(cells.len() / m.cells)
 }
 
-/// Runs `per_vertex(index, cells, scratch, out)` over all vertices in parallel blocks, writing
-/// `width` outputs per vertex into one vector in index order (deterministic).
-fn map_vertices<T: Copy + Default + Send>(
-    m: &Model,
-    cells: &[u8],
-    width: usize,
-    job: &Job,
-    per_vertex: impl Fn(u64, &[u8], &mut [u16], &mut [T]) + Sync,
-) -> Result<Vec<T>, Error> {
-    let count = vertex_count(m, cells)?;
-    let mut out = vec![T::default(); count * width];
-    let scratch_len = (m.n + 2) * (m.rows + 1) * 2;
-    let c = m.cells.max(1);
-    out.par_chunks_mut(BLOCK * width).enumerate().try_for_each(|(b, chunk)| {
-        job.checkpoint(BLOCK as u64)?;
-        let mut scratch = vec![0u16; scratch_len];
-        for (k, slot) in chunk.chunks_mut(width).enumerate() {
-            let v = b * BLOCK + k;
-            let t = if m.cells == 0 { &[][..] } else { &cells[v * c..(v + 1) * c] };
-            per_vertex(v as u64, t, &mut scratch, slot);
-        }
-        Ok(())
-    })?;
-    Ok(out)
-}
-
-/// phi_i and epsilon_i of every vertex, interleaved as (phi, eps) pairs.
-pub fn string_lengths(m: &Model, cells: &[u8], i: usize, job: &Job) -> Result<Vec<i32>, Error> {
-    check_i(m, i)?;
-    let w = m.rows + 1;
-    map_vertices(m, cells, 2, job, |_, t, s, out| {
-        three_levels(m, t, i, &mut s[..3 * w]);
-        let sig = signature(&s[..w], &s[w..2 * w], &s[2 * w..3 * w], m.rows.min(i + 1));
-        (out[0], out[1]) = (narrow(sig.phi), narrow(sig.eps));
-    })
-}
-
-/// f_i and e_i targets of every vertex (index or -1), interleaved as (f, e) pairs.
-pub fn operators(m: &Model, cells: &[u8], i: usize, job: &Job) -> Result<Vec<i64>, Error> {
-    check_i(m, i)?;
-    let w = m.rows + 1;
-    map_vertices(m, cells, 2, job, |v, t, s, out| {
-        let (lv, tmp) = s.split_at_mut(3 * w);
-        three_levels(m, t, i, lv);
-        let levels = [&lv[..w], &lv[w..2 * w], &lv[2 * w..]];
-        let sig = signature(levels[0], levels[1], levels[2], m.rows.min(i + 1));
-        out[0] = sig.f_row.map_or(-1, |r| moved(m, v, i, levels, r, false, &mut tmp[..w]));
-        out[1] = sig.e_row.map_or(-1, |r| moved(m, v, i, levels, r, true, &mut tmp[..w]));
-    })
-}
-
-/// f_i, e_i, phi_i, epsilon_i for all i in 1..n, each (n-1) x N, row i-1 for operator i.
-#[derive(Debug, Default)]
-pub struct OperatorTables {
-    pub count: usize,
+/// f_i, e_i (targets or -1) and phi_i, epsilon_i of every vertex for one i.
+#[derive(Debug, Default, Clone)]
+pub struct Operator {
     pub f: Vec<i64>,
     pub e: Vec<i64>,
     pub phi: Vec<i32>,
     pub eps: Vec<i32>,
 }
 
-/// All operator tables at once. The Gelfand-Tsetlin pattern is read once per vertex and shared by
-/// all i; the vertex-major results are then transposed so that each f_i is contiguous.
-#[allow(clippy::cast_possible_truncation)]
-pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<OperatorTables, Error> {
-    let w = m.rows + 1;
-    let ops = m.n.saturating_sub(1);
-    let raw = map_vertices(m, cells, 4 * ops, job, |v, t, s, out| {
-        let (gt, tmp) = s.split_at_mut((m.n + 1) * w);
-        m.pattern(t, gt);
-        for i in 1..m.n {
-            let levels = [&gt[(i - 1) * w..i * w], &gt[i * w..(i + 1) * w], &gt[(i + 1) * w..(i + 2) * w]];
-            let sig = signature(levels[0], levels[1], levels[2], m.rows.min(i + 1));
-            let o = &mut out[4 * (i - 1)..4 * i];
-            o[0] = sig.f_row.map_or(-1, |r| moved(m, v, i, levels, r, false, &mut tmp[..w]));
-            o[1] = sig.e_row.map_or(-1, |r| moved(m, v, i, levels, r, true, &mut tmp[..w]));
-            (o[2], o[3]) = (i64::from(sig.phi), i64::from(sig.eps));
-        }
-    })?;
+/// One operator for all vertices; with `targets = false` only phi and epsilon are filled (f and
+/// e stay empty). Parallel over blocks of vertices, each block writing its own slices.
+pub fn operator(
+    m: &Model,
+    cells: &[u8],
+    i: usize,
+    targets: bool,
+    job: &Job,
+) -> Result<Operator, Error> {
+    check_i(m, i)?;
     let count = vertex_count(m, cells)?;
-    let mut t = OperatorTables { count, ..Default::default() };
-    let column = |k: usize| (0..ops).flat_map(move |i| (0..count).map(move |v| (i, v, k)));
-    t.f = column(0).map(|(i, v, k)| raw[v * 4 * ops + 4 * i + k]).collect();
-    t.e = column(1).map(|(i, v, k)| raw[v * 4 * ops + 4 * i + k]).collect();
-    t.phi = column(2).map(|(i, v, k)| raw[v * 4 * ops + 4 * i + k] as i32).collect();
-    t.eps = column(3).map(|(i, v, k)| raw[v * 4 * ops + 4 * i + k] as i32).collect();
-    Ok(t)
+    let mut op = Operator {
+        phi: vec![0; count],
+        eps: vec![0; count],
+        ..Operator::default()
+    };
+    let lengths = op
+        .phi
+        .par_chunks_mut(BLOCK)
+        .zip(op.eps.par_chunks_mut(BLOCK));
+    if targets {
+        (op.f, op.e) = (vec![-1; count], vec![-1; count]);
+        let ends = op.f.par_chunks_mut(BLOCK).zip(op.e.par_chunks_mut(BLOCK));
+        lengths
+            .zip(ends)
+            .enumerate()
+            .try_for_each(|(b, ((phi, eps), (f, e)))| {
+                job.checkpoint(BLOCK as u64)?;
+                operator_block(m, cells, i, b * BLOCK, phi, eps, Some((f, e)));
+                Ok(())
+            })?;
+    } else {
+        lengths.enumerate().try_for_each(|(b, (phi, eps))| {
+            job.checkpoint(BLOCK as u64)?;
+            operator_block(m, cells, i, b * BLOCK, phi, eps, None);
+            Ok::<_, Error>(())
+        })?;
+    }
+    Ok(op)
+}
+
+/// The vertices `first ..` of one block: phi, epsilon, and the targets when asked for.
+fn operator_block(
+    m: &Model,
+    cells: &[u8],
+    i: usize,
+    first: usize,
+    phi: &mut [i32],
+    eps: &mut [i32],
+    mut targets: Option<(&mut [i64], &mut [i64])>,
+) {
+    let w = m.rows + 1;
+    let c = m.cells.max(1);
+    let used = m.rows.min(i + 1);
+    let mut scratch = vec![0u16; 4 * w];
+    let (lv, tmp) = scratch.split_at_mut(3 * w);
+    for k in 0..phi.len() {
+        let v = first + k;
+        let t = if m.cells == 0 {
+            &[][..]
+        } else {
+            &cells[v * c..(v + 1) * c]
+        };
+        three_levels(m, t, i, lv);
+        let (kappa, rest) = lv.split_at(w);
+        let (mu, nu) = rest.split_at(w);
+        let sig = signature(kappa, mu, nu, used);
+        (phi[k], eps[k]) = (narrow(sig.phi), narrow(sig.eps));
+        if let Some((f, e)) = targets.as_mut() {
+            if sig.f_row.is_some() || sig.e_row.is_some() {
+                let around = Around::new(m, i, kappa, mu, nu);
+                if let Some(r) = sig.f_row {
+                    f[k] = around.moved(m, v as u64, r, false, tmp);
+                }
+                if let Some(r) = sig.e_row {
+                    e[k] = around.moved(m, v as u64, r, true, tmp);
+                }
+            }
+        }
+    }
+}
+
+/// Every operator i = 1..n-1, computed in parallel over i.
+pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<Operator>, Error> {
+    (1..m.n)
+        .into_par_iter()
+        .map(|i| operator(m, cells, i, true, job))
+        .collect()
+}
+
+#[inline]
+fn narrow(x: u32) -> i32 {
+    i32::try_from(x).expect("string lengths are at most the number of cells")
 }
 
 /// Weight of every vertex: the number of entries equal to k, for k = 1..n, vertex-major.
 pub fn weights(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<i32>, Error> {
-    map_vertices(m, cells, m.n, job, |_, t, _, out| {
-        for &x in t {
-            out[usize::from(x) - 1] += 1;
-        }
-    })
+    let count = vertex_count(m, cells)?;
+    let mut out = vec![0i32; count * m.n];
+    if m.cells == 0 || m.n == 0 {
+        return Ok(out);
+    }
+    out.par_chunks_mut(BLOCK * m.n)
+        .enumerate()
+        .try_for_each(|(b, chunk)| {
+            job.checkpoint(BLOCK as u64)?;
+            for (k, row) in chunk.chunks_mut(m.n).enumerate() {
+                let v = b * BLOCK + k;
+                for &x in &cells[v * m.cells..(v + 1) * m.cells] {
+                    row[usize::from(x) - 1] += 1;
+                }
+            }
+            Ok(())
+        })?;
+    Ok(out)
 }

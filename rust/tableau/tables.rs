@@ -33,7 +33,10 @@ impl Model {
     pub fn new(shape: &[usize], n: usize) -> Result<Self, Error> {
         let shape = normalize(shape, "shape")?;
         if n > super::MAX_N {
-            return Err(Error::invalid(format!("n must be at most {}; got {n}", super::MAX_N)));
+            return Err(Error::invalid(format!(
+                "n must be at most {}; got {n}",
+                super::MAX_N
+            )));
         }
         let rows = shape.len();
         let cells = shape.iter().sum();
@@ -100,13 +103,26 @@ impl Model {
 
     #[inline]
     fn box_size(nu: &[u16], free: usize) -> usize {
-        (0..free).map(|j| usize::from(nu[j] - nu[j + 1] + 1)).product()
+        (0..free)
+            .map(|j| usize::from(nu[j] - nu[j + 1] + 1))
+            .product()
     }
 
-    /// Number of SSYT with entries < k... placed before mu: the rank contribution of level k.
+    /// The rank contribution of level k: the number of tableaux with the same levels k..n whose
+    /// level k-1 comes before mu.
     #[inline]
     pub fn offset(&self, k: usize, nu_id: usize, nu: &[u16], mu: &[u16]) -> u64 {
-        self.cum[k][self.base[k][nu_id] + Self::local(nu, mu, self.free_rows(k))]
+        self.level(k).offset(nu_id, nu, mu)
+    }
+
+    /// The tables of level k, to hoist out of loops over vertices.
+    #[inline]
+    pub fn level(&self, k: usize) -> Level<'_> {
+        Level {
+            base: &self.base[k],
+            cum: &self.cum[k],
+            free: self.free_rows(k),
+        }
     }
 
     /// Number of SSYT of shape nu with entries <= k.
@@ -130,7 +146,10 @@ impl Model {
         let bytes = subs * 8 * (self.n as u128 + 1) * 4; // rough: a few entries per partition and level
         if subs > 50_000_000 || bytes > TABLE_BUDGET_BYTES * 8 {
             return Err(Error::TooLarge {
-                what: format!("ranking tables for shape {:?} ({subs} sub-shapes)", self.shape),
+                what: format!(
+                    "ranking tables for shape {:?} ({subs} sub-shapes)",
+                    self.shape
+                ),
                 bytes,
                 instead: "use count_tableaux for the number of tableaux".into(),
             });
@@ -139,10 +158,15 @@ impl Model {
     }
 
     fn build_tables(&mut self) -> Result<(), Error> {
-        let all: Vec<Vec<u16>> = self.sub.all().into_iter().map(|mut p| {
-            p.push(0);
-            p
-        }).collect();
+        let all: Vec<Vec<u16>> = self
+            .sub
+            .all()
+            .into_iter()
+            .map(|mut p| {
+                p.push(0);
+                p
+            })
+            .collect();
         let mut bytes: u128 = 0;
         for k in 1..=self.n {
             let free = self.free_rows(k);
@@ -161,7 +185,10 @@ impl Model {
                     decode(nu, t, free, &mut mu);
                     let below = if k == 1 { 1 } else { self.total(k - 1, &mu) };
                     acc = acc.checked_add(below).ok_or_else(|| Error::TooLarge {
-                        what: format!("SSYT({:?}, {}): more than 2^64 tableaux", self.shape, self.n),
+                        what: format!(
+                            "SSYT({:?}, {}): more than 2^64 tableaux",
+                            self.shape, self.n
+                        ),
                         bytes: u128::MAX,
                         instead: "use count_tableaux for the exact number".into(),
                     })?;
@@ -270,12 +297,16 @@ impl Model {
             for (c, &x) in row.iter().enumerate() {
                 if x == 0 || usize::from(x) > self.n {
                     return Err(Error::invalid(format!(
-                        "tableau entries must be in 1..{}; got {x} in row {}", self.n, r + 1
+                        "tableau entries must be in 1..{}; got {x} in row {}",
+                        self.n,
+                        r + 1
                     )));
                 }
                 if c > 0 && row[c - 1] > x {
                     return Err(Error::invalid(format!(
-                        "tableau rows must weakly increase; row {} has {} before {x}", r + 1, row[c - 1]
+                        "tableau rows must weakly increase; row {} has {} before {x}",
+                        r + 1,
+                        row[c - 1]
                     )));
                 }
                 if r > 0 && t[self.row_start[r - 1] + c] >= x {
@@ -288,6 +319,21 @@ impl Model {
             }
         }
         Ok(())
+    }
+}
+
+/// One level's tables, borrowed.
+#[derive(Debug, Clone, Copy)]
+pub struct Level<'a> {
+    base: &'a [usize],
+    cum: &'a [u64],
+    free: usize,
+}
+
+impl Level<'_> {
+    #[inline]
+    pub fn offset(&self, nu_id: usize, nu: &[u16], mu: &[u16]) -> u64 {
+        self.cum[self.base[nu_id] + Model::local(nu, mu, self.free)]
     }
 }
 

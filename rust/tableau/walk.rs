@@ -34,17 +34,19 @@ impl<'m> Walker<'m> {
         let rows = self.model.rows;
         let w = rows + 1;
         let gt = &mut self.gt;
-        for k in 1..self.model.n {
-            for j in (0..k.min(rows)).rev() {
+        // Fast path: lambda^(1) is one part, the digit that moves most often.
+        if self.model.n >= 2 && rows > 0 && gt[w] > gt[2 * w + 1] {
+            gt[w] -= 1;
+            return Some(1);
+        }
+        for k in 2..self.model.n {
+            let free = k.min(rows);
+            for j in (0..free).rev() {
                 if gt[k * w + j] > gt[(k + 1) * w + j + 1] {
                     gt[k * w + j] -= 1;
-                    for jj in j + 1..k.min(rows) {
-                        gt[k * w + jj] = gt[(k + 1) * w + jj];
-                    }
+                    gt.copy_within((k + 1) * w + j + 1..(k + 1) * w + free, k * w + j + 1);
                     for kk in (1..k).rev() {
-                        for jj in 0..kk.min(rows) {
-                            gt[kk * w + jj] = gt[(kk + 1) * w + jj];
-                        }
+                        gt.copy_within((kk + 1) * w..(kk + 1) * w + kk.min(rows), kk * w);
                     }
                     return Some(k);
                 }
@@ -53,13 +55,17 @@ impl<'m> Walker<'m> {
         None
     }
 
-    /// Rewrites in `t` the cells that may hold entries <= k + 1 (those are all that change when
-    /// `advance` returns k).
+    /// Rewrites in `t` the cells that may have changed when `advance` returned k: entries <= k + 1
+    /// in the rows above row k (lambda^(j) has at most j rows, so lower rows keep their cells).
     #[inline]
     pub fn rewrite(&self, k: usize, t: &mut [u8]) {
         let m = self.model;
         let w = m.rows + 1;
-        for r in 0..(k + 1).min(m.rows) {
+        if k == 1 {
+            t[usize::from(self.gt[w])] = 2; // the last 1 of row 1 became a 2
+            return;
+        }
+        for r in 0..k.min(m.rows) {
             let row = &mut t[m.row_start[r]..m.row_start[r + 1]];
             for v in (r + 1)..=(k + 1) {
                 let (a, b) = (self.gt[(v - 1) * w + r], self.gt[v * w + r]);
@@ -94,15 +100,19 @@ pub fn fill_range(model: &Model, start: u64, out: &mut [u8]) -> Result<(), Error
 /// All tableaux of the model, row-major, `count * cells` bytes; both cores for large counts.
 pub fn fill(model: &Model, job: &Job) -> Result<Vec<u8>, Error> {
     let total = usize::try_from(model.count()).map_err(|_| too_big(model))?;
-    let bytes = total.checked_mul(model.cells).ok_or_else(|| too_big(model))?;
+    let bytes = total
+        .checked_mul(model.cells)
+        .ok_or_else(|| too_big(model))?;
     let mut out = vec![0u8; bytes];
     if model.cells == 0 {
         return Ok(out);
     }
-    out.par_chunks_mut(BLOCK * model.cells).enumerate().try_for_each(|(b, chunk)| {
-        job.checkpoint(BLOCK as u64)?;
-        fill_range(model, (b * BLOCK) as u64, chunk)
-    })?;
+    out.par_chunks_mut(BLOCK * model.cells)
+        .enumerate()
+        .try_for_each(|(b, chunk)| {
+            job.checkpoint(BLOCK as u64)?;
+            fill_range(model, (b * BLOCK) as u64, chunk)
+        })?;
     Ok(out)
 }
 
@@ -147,7 +157,12 @@ pub fn scan(model: &Model, threads: usize, job: &Job) -> Result<(u64, u64), Erro
 
 fn too_big(model: &Model) -> Error {
     Error::TooLarge {
-        what: format!("SSYT({:?}, {}) ({} tableaux)", model.shape, model.n, model.count()),
+        what: format!(
+            "SSYT({:?}, {}) ({} tableaux)",
+            model.shape,
+            model.n,
+            model.count()
+        ),
         bytes: u128::from(model.count()) * model.cells as u128,
         instead: "stream it in chunks with iter_tableaux".into(),
     }

@@ -113,6 +113,8 @@ mod tests {
                 (op.phi.as_slice(), op.eps.as_slice())
             );
             assert!(lengths.f.is_empty());
+            let single = operator(&m, &all, i + 1, true, &Job::default()).unwrap();
+            assert_eq!((&single.f, &single.e), (&op.f, &op.e));
         }
     }
 

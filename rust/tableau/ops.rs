@@ -238,12 +238,96 @@ fn operator_block(
     }
 }
 
-/// Every operator i = 1..n-1, computed in parallel over i.
+/// One block's share of one operator's four output arrays.
+struct Slices<'a> {
+    f: &'a mut [i64],
+    e: &'a mut [i64],
+    phi: &'a mut [i32],
+    eps: &'a mut [i32],
+}
+
+/// Every operator i = 1..n-1 at once. Each vertex's pattern, level ids and rank terms are read
+/// once and shared by all i; blocks of vertices run in parallel, each writing its own slices of
+/// the (n-1) x 4 output arrays, so every output stays contiguous per i without a transpose.
 pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<Operator>, Error> {
-    (1..m.n)
+    let count = vertex_count(m, cells)?;
+    let blank = || Operator {
+        f: vec![-1; count],
+        e: vec![-1; count],
+        phi: vec![0; count],
+        eps: vec![0; count],
+    };
+    let mut out: Vec<Operator> = (1..m.n).map(|_| blank()).collect();
+    let mut per_block: Vec<Vec<Slices>> = (0..count.div_ceil(BLOCK)).map(|_| Vec::new()).collect();
+    for op in &mut out {
+        let ends = op.f.chunks_mut(BLOCK).zip(op.e.chunks_mut(BLOCK));
+        let lengths = op.phi.chunks_mut(BLOCK).zip(op.eps.chunks_mut(BLOCK));
+        for (b, ((f, e), (phi, eps))) in ends.zip(lengths).enumerate() {
+            per_block[b].push(Slices { f, e, phi, eps });
+        }
+    }
+    per_block
         .into_par_iter()
-        .map(|i| operator(m, cells, i, true, job))
-        .collect()
+        .enumerate()
+        .try_for_each(|(b, mut slices)| {
+            job.checkpoint(BLOCK as u64)?;
+            tables_block(m, cells, b * BLOCK, &mut slices);
+            Ok::<_, Error>(())
+        })?;
+    Ok(out)
+}
+
+fn tables_block(m: &Model, cells: &[u8], first: usize, out: &mut [Slices]) {
+    let (n, w, c) = (m.n, m.rows + 1, m.cells.max(1));
+    let levels: Vec<Level> = (1..=n).map(|k| m.level(k)).collect();
+    let (mut gt, mut tmp) = (vec![0u16; (n + 1) * w], vec![0u16; w]);
+    let (mut ids, mut terms) = (vec![0usize; n + 1], vec![0u64; n + 1]);
+    let len = out.first().map_or(0, |s| s.phi.len());
+    for k in 0..len {
+        let v = first + k;
+        m.pattern(
+            if m.cells == 0 {
+                &[]
+            } else {
+                &cells[v * c..(v + 1) * c]
+            },
+            &mut gt,
+        );
+        let level = |l: usize| &gt[l * w..(l + 1) * w];
+        for (l, id) in ids.iter_mut().enumerate() {
+            *id = m.sub.id(level(l));
+        }
+        for l in 1..=n {
+            terms[l] = levels[l - 1].offset(ids[l], level(l), level(l - 1));
+        }
+        for i in 1..n {
+            let (kappa, mu, nu) = (level(i - 1), level(i), level(i + 1));
+            let sig = signature(kappa, mu, nu, m.rows.min(i + 1));
+            let s = &mut out[i - 1];
+            (s.phi[k], s.eps[k]) = (narrow(sig.phi), narrow(sig.eps));
+            if sig.f_row.is_none() && sig.e_row.is_none() {
+                continue;
+            }
+            let (upper, lower) = (levels[i], levels[i - 1]);
+            let (mu_id, nu_id, before) = (ids[i], ids[i + 1], terms[i + 1] + terms[i]);
+            let around = Around {
+                upper,
+                lower,
+                kappa,
+                mu,
+                nu,
+                mu_id,
+                nu_id,
+                before,
+            };
+            if let Some(r) = sig.f_row {
+                s.f[k] = around.moved(m, v as u64, r, false, &mut tmp);
+            }
+            if let Some(r) = sig.e_row {
+                s.e[k] = around.moved(m, v as u64, r, true, &mut tmp);
+            }
+        }
+    }
 }
 
 #[inline]

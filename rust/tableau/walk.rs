@@ -44,9 +44,14 @@ impl<'m> Walker<'m> {
             for j in (0..free).rev() {
                 if gt[k * w + j] > gt[(k + 1) * w + j + 1] {
                     gt[k * w + j] -= 1;
-                    gt.copy_within((k + 1) * w + j + 1..(k + 1) * w + free, k * w + j + 1);
+                    // plain loops: these copies are a few elements, shorter than a memmove call
+                    for jj in j + 1..free {
+                        gt[k * w + jj] = gt[(k + 1) * w + jj];
+                    }
                     for kk in (1..k).rev() {
-                        gt.copy_within((kk + 1) * w..(kk + 1) * w + kk.min(rows), kk * w);
+                        for jj in 0..kk.min(rows) {
+                            gt[kk * w + jj] = gt[(kk + 1) * w + jj];
+                        }
                     }
                     return Some(k);
                 }

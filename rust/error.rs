@@ -8,7 +8,11 @@ pub enum Error {
     /// An argument broke a rule; the text names the argument, the rule and the value.
     InvalidArgument(String),
     /// The request would need more memory than allowed: what, its estimated size, and what to use instead.
-    TooLarge { what: String, bytes: u128, instead: String },
+    TooLarge {
+        what: String,
+        bytes: u128,
+        instead: String,
+    },
     /// A stop was requested (Ctrl-C) while the kernel ran.
     Interrupted,
 }
@@ -23,7 +27,11 @@ impl fmt::Display for Error {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             Error::InvalidArgument(m) => f.write_str(m),
-            Error::TooLarge { what, bytes, instead } => write!(
+            Error::TooLarge {
+                what,
+                bytes,
+                instead,
+            } => write!(
                 f,
                 "{what} would need about {} of memory, more than allowed; {instead}",
                 human_bytes(*bytes)

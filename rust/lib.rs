@@ -4,6 +4,7 @@
 pub mod crystal;
 pub mod error;
 pub mod job;
+pub mod memory;
 pub mod partition;
 pub mod schur;
 pub mod tableau;

@@ -14,9 +14,12 @@ from druse._check import check_nonnegative_int, check_partition, check_positive_
 def count_tableaux(shape: Sequence[int], n: int) -> int:
     """Number of semistandard Young tableaux of ``shape`` with entries in 1..n, exactly.
 
-    Uses the hook-content formula prod (n + c(u)) / h(u) over the cells u, c(u) = column - row
-    the content and h(u) the hook length (Stanley, Enumerative Combinatorics vol. 2, 1999,
-    Cor. 7.21.4). No tableau is enumerated, so any size is cheap.
+    No tableau is enumerated. Of two exact product formulas, the one with fewer factors is used:
+    the hook-content formula prod (n + c(u)) / h(u) over the |shape| cells u, c(u) the content and
+    h(u) the hook length (Stanley, Enumerative Combinatorics vol. 2, 1999, Cor. 7.21.4), or Weyl's
+    dimension formula prod_{i<j<=n} (l_i - l_j + j - i) / (j - i) (Weyl, 1926; Fulton-Harris,
+    Representation Theory, 1991, Thm. 6.3), with n(n-1)/2 factors. Products are taken as balanced
+    trees, so a shape of a million cells or n in the thousands stays fast.
 
     Parameters
     ----------
@@ -31,18 +34,41 @@ def count_tableaux(shape: Sequence[int], n: int) -> int:
     8
     >>> count_tableaux((3, 3, 3), 2)
     0
+    >>> count_tableaux((10**6,), 2)
+    1000001
     """
     lam = check_partition(shape, "shape")
     n = check_nonnegative_int(n, "n")
     if len(lam) > n:
         return 0
+    if n * (n - 1) // 2 < sum(lam):
+        return _weyl_dimension(lam, n)
+    return _hook_content(lam, n)
+
+
+def _hook_content(lam: tuple[int, ...], n: int) -> int:
     conj = [sum(1 for p in lam if p > c) for c in range(lam[0])] if lam else []
-    num, den = 1, 1
-    for r, length in enumerate(lam):
-        for c in range(length):
-            num *= n + c - r
-            den *= (length - c - 1) + (conj[c] - r - 1) + 1
-    return num // den
+    contents = (n + c - r for r, length in enumerate(lam) for c in range(length))
+    hooks = ((length - c) + (conj[c] - r) - 1 for r, length in enumerate(lam) for c in range(length))
+    return _product(list(contents)) // _product(list(hooks))
+
+
+def _weyl_dimension(lam: tuple[int, ...], n: int) -> int:
+    parts = list(lam) + [0] * (n - len(lam))
+    pairs = [(i, j) for i in range(n) for j in range(i + 1, n)]
+    return _product([parts[i] - parts[j] + j - i for i, j in pairs]) // _product(
+        [j - i for i, j in pairs]
+    )
+
+
+def _product(factors: list[int]) -> int:
+    """Product as a balanced tree: big integers multiply fastest when sizes are even."""
+    while len(factors) > 1:
+        factors = [
+            factors[k] * factors[k + 1] if k + 1 < len(factors) else factors[k]
+            for k in range(0, len(factors), 2)
+        ]
+    return factors[0] if factors else 1
 
 
 def iter_tableaux(

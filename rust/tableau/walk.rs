@@ -81,18 +81,37 @@ impl<'m> Walker<'m> {
     }
 }
 
+/// Tableaux of at most this many cells are built in a stack buffer and stored with one
+/// fixed-width copy each (the bytes past the tableau land in the next slot, rewritten next).
+const NARROW: usize = 32;
+
 /// Writes tableaux `start .. start + out.len() / cells` (row-major cells, one per row of `out`).
 pub fn fill_range(model: &Model, start: u64, out: &mut [u8]) -> Result<(), Error> {
     let c = model.cells;
-    if out.is_empty() {
-        return Ok(());
-    }
-    if c == 0 {
-        return Ok(()); // the empty tableau has no cells
+    if out.is_empty() || c == 0 {
+        return Ok(()); // nothing asked, or the empty tableau (no cells)
     }
     let mut walker = Walker::at(model, start)?;
+    let count = out.len() / c;
+    if c <= NARROW {
+        let mut cur = [0u8; NARROW];
+        model.cells_of(&walker.gt, &mut cur[..c]);
+        for i in 0..count {
+            let at = i * c;
+            if at + NARROW <= out.len() {
+                out[at..at + NARROW].copy_from_slice(&cur);
+            } else {
+                out[at..at + c].copy_from_slice(&cur[..c]);
+            }
+            if i + 1 < count {
+                let k = walker.advance().expect("the range lies inside 0..count");
+                walker.rewrite(k, &mut cur);
+            }
+        }
+        return Ok(());
+    }
     model.cells_of(&walker.gt, &mut out[..c]);
-    for i in 1..out.len() / c {
+    for i in 1..count {
         let (done, rest) = out.split_at_mut(i * c);
         let t = &mut rest[..c];
         t.copy_from_slice(&done[(i - 1) * c..]);
@@ -108,7 +127,7 @@ pub fn fill(model: &Model, job: &Job) -> Result<Vec<u8>, Error> {
     let bytes = total
         .checked_mul(model.cells)
         .ok_or_else(|| too_big(model))?;
-    let mut out = vec![0u8; bytes];
+    let mut out = crate::memory::zeroed(bytes);
     if model.cells == 0 {
         return Ok(out);
     }

@@ -17,7 +17,7 @@ import numpy.typing as npt
 from druse import _core
 from druse._check import check_budget, check_index, check_int, check_partition, check_positive_int
 from druse.poly import Poly
-from druse.tableaux import count_tableaux
+from druse.tableaux import count_tableaux, tableau_model
 
 IntArray = npt.NDArray[np.int64]
 SmallIntArray = npt.NDArray[np.int32]
@@ -215,7 +215,7 @@ class TableauCrystal(Crystal):
             f"the {count} tableaux of B{self._shape} for GL_{n}",
             "use druse.iter_tableaux to stream them in chunks, or druse.count_tableaux to count",
         )
-        self._model = _core.TableauModel(list(self._shape), n)
+        self._model = tableau_model(self._shape, n)
         self._cells = _frozen(self._model.enumerate())
         super().__init__(n, count)
 

@@ -8,7 +8,16 @@ import numpy as np
 import numpy.typing as npt
 
 from druse import _core
-from druse._check import check_nonnegative_int, check_partition, check_positive_int
+from druse._check import check_index, check_nonnegative_int, check_partition, check_positive_int
+
+#: Entries are stored in one byte, so enumeration needs n <= 255 (counting does not).
+MAX_LETTERS = 255
+
+
+def tableau_model(shape: tuple[int, ...], n: int) -> _core.TableauModel:
+    """The Rust tables of SSYT(shape, n), for an already checked partition and n >= 1."""
+    check_index(n, 1, MAX_LETTERS, "n (for enumeration; count_tableaux has no limit)")
+    return _core.TableauModel(list(shape), n)
 
 
 def count_tableaux(shape: Sequence[int], n: int) -> int:
@@ -88,7 +97,7 @@ def iter_tableaux(
     lam = check_partition(shape, "shape")
     n = check_positive_int(n, "n")
     size = check_positive_int(chunk_size, "chunk_size")
-    model = _core.TableauModel(list(lam), n)
+    model = tableau_model(lam, n)
     total = model.count()
     position = check_nonnegative_int(start, "start")
     while position < total:
@@ -113,5 +122,5 @@ def count_by_enumeration(shape: Sequence[int], n: int, threads: int = 1) -> int:
     lam = check_partition(shape, "shape")
     n = check_positive_int(n, "n")
     workers = check_positive_int(threads, "threads")
-    count, _checksum = _core.TableauModel(list(lam), n).scan(workers)
+    count, _checksum = tableau_model(lam, n).scan(workers)
     return int(count)

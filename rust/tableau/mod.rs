@@ -128,6 +128,19 @@ mod tests {
     }
 
     #[test]
+    fn empty_shape_is_one_vertex_with_no_arrows() {
+        let m = Model::new(&[], 4).unwrap();
+        assert_eq!(m.count(), 1);
+        let cells = fill(&m, &Job::default()).unwrap();
+        assert!(cells.is_empty());
+        let tables = operator_tables(&m, &cells, &Job::default()).unwrap();
+        assert!(tables.iter().all(|op| op.f == [-1] && op.e == [-1] && op.phi == [0]));
+        assert_eq!(weights(&m, &cells, &Job::default()).unwrap(), vec![0; 4]);
+        // one row longer than any part fits u16: refused, not wrapped
+        assert!(Model::new(&[70_000], 2).is_err());
+    }
+
+    #[test]
     fn parallel_blocks_join_up() {
         // (4,2,1), n = 8: more than two blocks of the parallel fill
         let m = Model::new(&[4, 2, 1], 8).unwrap();

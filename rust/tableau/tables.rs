@@ -59,10 +59,6 @@ impl Model {
         if rows > n {
             return Ok(model); // no tableau: more rows than letters
         }
-        if rows == 0 {
-            model.count = 1; // the empty tableau
-            return Ok(model);
-        }
         model.check_table_size()?;
         model.build_tables()?;
         let lambda = model.padded(&model.shape);
@@ -135,11 +131,11 @@ impl Model {
     }
 
     fn check_table_size(&self) -> Result<(), Error> {
-        if self.shape[0] > usize::from(u16::MAX - 1) {
+        if self.shape.first().is_some_and(|&p| p > usize::from(u16::MAX - 1)) {
             return Err(Error::invalid(format!(
                 "shape parts must be below {}; got {}",
                 u16::MAX,
-                self.shape[0]
+                self.shape.first().copied().unwrap_or(0)
             )));
         }
         let subs = u128::from(self.sub.count());

@@ -88,9 +88,13 @@ def check_budget(nbytes: int, what: str, instead: str) -> None:
 
 
 def _human(nbytes: int) -> str:
-    value = float(nbytes)
-    for unit in ("B", "kB", "MB", "GB", "TB", "PB"):
-        if value < 1000:
-            return f"{value:.1f} {unit}" if unit != "B" else f"{nbytes} B"
-        value /= 1000
-    return f"{value:.3g} EB"
+    """``1.5 GB``-style size; exact integer arithmetic, so sizes past the float range work too."""
+    if nbytes < 1000:
+        return f"{nbytes} B"
+    digits = len(str(nbytes))
+    units = ("kB", "MB", "GB", "TB", "PB", "EB")
+    step = min((digits - 1) // 3, len(units))
+    scaled = nbytes // 10 ** (3 * step - 1)  # ten times the size in the chosen unit
+    if step == len(units) and scaled >= 10_000:
+        return f"about 10^{digits - 1} B"
+    return f"{scaled // 10}.{scaled % 10} {units[step - 1]}"

@@ -228,6 +228,13 @@ class TableauCrystal(Crystal):
         """All tableaux as a read-only uint8 array (len(C), |lambda|): cells row by row."""
         return self._cells
 
+    def reading_words(self) -> npt.NDArray[np.uint8]:
+        """Row reading words of all tableaux (rows bottom to top, each left to right), as uint8
+        (len(C), |lambda|): the words whose signature rule defines the operators."""
+        starts = np.cumsum((0, *self._shape))
+        order = [k for r in reversed(range(len(self._shape))) for k in range(starts[r], starts[r + 1])]
+        return _frozen(np.ascontiguousarray(self._cells[:, order]))
+
     def tableau(self, v: int) -> tuple[tuple[int, ...], ...]:
         """The tableau at vertex v, as a tuple of rows."""
         v = check_index(v, 0, self._size - 1, "v")

@@ -12,11 +12,18 @@ from druse._check import check_index, check_nonnegative_int, check_partition, ch
 
 #: Entries are stored in one byte, so enumeration needs n <= 255 (counting does not).
 MAX_LETTERS = 255
+#: Row lengths of enumerated shapes are stored in 16 bits.
+MAX_PART = 65534
 
 
 def tableau_model(shape: tuple[int, ...], n: int) -> _core.TableauModel:
     """The Rust tables of SSYT(shape, n), for an already checked partition and n >= 1."""
     check_index(n, 1, MAX_LETTERS, "n (for enumeration; count_tableaux has no limit)")
+    if shape and shape[0] > MAX_PART:
+        raise ValueError(
+            f"shape parts must be at most {MAX_PART} for enumeration; got {shape[0]} "
+            "(count_tableaux has no limit)"
+        )
     return _core.TableauModel(list(shape), n)
 
 
@@ -101,7 +108,7 @@ def iter_tableaux(
     total = model.count()
     position = check_nonnegative_int(start, "start")
     while position < total:
-        block = model.chunk(position, size)
+        block = model.chunk(position, min(size, total - position))
         block.flags.writeable = False
         position += len(block)
         yield block

@@ -7,6 +7,8 @@ use crate::partition::{normalize, SubShapes};
 /// Refuse tables larger than this (they are small for every shape a crystal of this size can hold).
 const TABLE_BUDGET_BYTES: u128 = 1 << 30;
 const NO_BASE: usize = usize::MAX;
+/// Row counts are stored as u16.
+pub const MAX_PART: usize = u16::MAX as usize - 1;
 
 /// The shape, n, and for each level k in 1..=n the table `cum[k]`: for each partition nu with at
 /// most k rows (located by `base[k][id(nu)]`), the running totals over the partitions mu that nu
@@ -38,13 +40,17 @@ impl Model {
                 super::MAX_N
             )));
         }
+        if let Some(&big) = shape.first().filter(|&&p| p > MAX_PART) {
+            return Err(Error::invalid(format!("shape parts must be at most {MAX_PART}; got {big}")));
+        }
         let rows = shape.len();
         let cells = shape.iter().sum();
         let mut row_start = vec![0; rows + 1];
         for r in 0..rows {
             row_start[r + 1] = row_start[r] + shape[r];
         }
-        let sub = SubShapes::new(&shape)?;
+        // more rows than letters: no tableau, and no tables to build
+        let sub = SubShapes::new(if rows > n { &[] } else { &shape })?;
         let mut model = Model {
             shape,
             n,
@@ -131,13 +137,6 @@ impl Model {
     }
 
     fn check_table_size(&self) -> Result<(), Error> {
-        if self.shape.first().is_some_and(|&p| p > usize::from(u16::MAX - 1)) {
-            return Err(Error::invalid(format!(
-                "shape parts must be below {}; got {}",
-                u16::MAX,
-                self.shape.first().copied().unwrap_or(0)
-            )));
-        }
         let subs = u128::from(self.sub.count());
         let bytes = subs * 8 * (self.n as u128 + 1) * 4; // rough: a few entries per partition and level
         if subs > 50_000_000 || bytes > TABLE_BUDGET_BYTES * 8 {

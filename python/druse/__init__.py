@@ -1,4 +1,4 @@
-"""druse: type A crystals on tableaux, Demazure characters, Schur and key polynomials, fast and exact."""
+"""druse: type A crystals on tableaux, Demazure characters, Schur and key polynomials, exactly."""
 
 from druse.crystal import Crystal, TableauCrystal, crystal
 from druse.errors import InternalError, TooLargeError

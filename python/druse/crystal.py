@@ -64,7 +64,9 @@ class Crystal:
         weights: npt.ArrayLike | None,
     ) -> None:
         if len(lowering) != self._n - 1:
-            raise ValueError(f"lowering must hold n - 1 = {self._n - 1} arrays; got {len(lowering)}")
+            raise ValueError(
+                f"lowering must hold n - 1 = {self._n - 1} arrays; got {len(lowering)}"
+            )
         for i, fi in enumerate(lowering, start=1):
             self._f[i] = _frozen(np.ascontiguousarray(fi, dtype=np.int64))
         _core.sources(list(self._f.values()), self._size)  # validates shapes and ranges
@@ -76,7 +78,9 @@ class Crystal:
         if weights is not None:
             w = np.ascontiguousarray(weights, dtype=np.int32)
             if w.shape != (self._size, self._n):
-                raise ValueError(f"weights must have shape ({self._size}, {self._n}); got {w.shape}")
+                raise ValueError(
+                    f"weights must have shape ({self._size}, {self._n}); got {w.shape}"
+                )
             self._weights = _frozen(w)
 
     # --- the table -------------------------------------------------------------------------
@@ -150,11 +154,11 @@ class Crystal:
         return _frozen(_core.sources(self._all("f"), self._size))
 
     def highest_weight(self) -> int:
-        """The highest weight vertex of a connected crystal (ValueError if there is not exactly one)."""
+        """The highest weight vertex of a connected crystal (ValueError unless exactly one)."""
         return _only(self.highest_weights(), "highest weight")
 
     def lowest_weight(self) -> int:
-        """The lowest weight vertex of a connected crystal (ValueError if there is not exactly one)."""
+        """The lowest weight vertex of a connected crystal (ValueError unless exactly one)."""
         return _only(self.lowest_weights(), "lowest weight")
 
     def components(self) -> IntArray:
@@ -232,7 +236,9 @@ class TableauCrystal(Crystal):
         """Row reading words of all tableaux (rows bottom to top, each left to right), as uint8
         (len(C), |lambda|): the words whose signature rule defines the operators."""
         starts = np.cumsum((0, *self._shape))
-        order = [k for r in reversed(range(len(self._shape))) for k in range(starts[r], starts[r + 1])]
+        order = [
+            k for r in reversed(range(len(self._shape))) for k in range(starts[r], starts[r + 1])
+        ]
         return _frozen(np.ascontiguousarray(self._cells[:, order]))
 
     def tableau(self, v: int) -> tuple[tuple[int, ...], ...]:
@@ -251,12 +257,14 @@ class TableauCrystal(Crystal):
         return int(self._model.rank(flat))
 
     def operator_tables(self) -> None:
-        """Compute f_i, e_i, phi_i, epsilon_i for every i in one pass (faster than one i at a time)."""
+        """Compute f_i, e_i, phi_i, epsilon_i for every i at once (faster than one i at a time)."""
         check_budget(self._size * (self._n - 1) * 24, "operator tables", "ask for single f(i)")
         for i, arrays in enumerate(self._model.operator_tables(self._cells), start=1):
             self._store(i, *arrays)
 
-    def _store(self, i: int, f: IntArray, e: IntArray, phi: SmallIntArray, eps: SmallIntArray) -> None:
+    def _store(
+        self, i: int, f: IntArray, e: IntArray, phi: SmallIntArray, eps: SmallIntArray
+    ) -> None:
         self._f[i], self._e[i] = _frozen(f), _frozen(e)
         self._phi[i], self._eps[i] = _frozen(phi), _frozen(eps)
 

@@ -6,7 +6,7 @@ __all__ = ["InternalError", "TooLargeError"]
 
 
 class TooLargeError(ValueError):
-    """The request would need more memory than allowed; the message gives the size and an alternative."""
+    """A request needs more memory than allowed; the message gives the size and an alternative."""
 
 
 class InternalError(RuntimeError):

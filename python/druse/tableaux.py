@@ -65,7 +65,9 @@ def count_tableaux(shape: Sequence[int], n: int) -> int:
 def _hook_content(lam: tuple[int, ...], n: int) -> int:
     conj = [sum(1 for p in lam if p > c) for c in range(lam[0])] if lam else []
     contents = (n + c - r for r, length in enumerate(lam) for c in range(length))
-    hooks = ((length - c) + (conj[c] - r) - 1 for r, length in enumerate(lam) for c in range(length))
+    hooks = (
+        (length - c) + (conj[c] - r) - 1 for r, length in enumerate(lam) for c in range(length)
+    )
     return _product(list(contents)) // _product(list(hooks))
 
 

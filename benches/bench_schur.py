@@ -67,49 +67,36 @@ def schur_reference(shape: Shape, n: int) -> Terms:
     return s(tuple(shape), n)
 
 
-@pytest.mark.benchmark(group="schur (5,4,3,2,1) n=9")
-def test_small_druse(benchmark: Any, record_rate: Any) -> None:
-    p = benchmark.pedantic(druse.schur, args=SMALL, rounds=20, warmup_rounds=2)
-    assert len(p) == 253692
+# Each case: (shape, n), the reference's (shape, n), rounds, and the number of terms of each.
+CASES = {
+    "schur (5,4,3,2,1) n=9": (SMALL, SMALL, 20, 253692, 253692),
+    "schur (6,5,4,3,2,1) n=10": (BIG, BIG_REFERENCE, 5, 5900290, 262144),
+}
+
+
+@pytest.mark.parametrize("group", CASES)
+def test_druse(benchmark: Any, record_rate: Any, group: str) -> None:
+    case, _, rounds, terms, _ = CASES[group]
+    benchmark.group = group
+    p = benchmark.pedantic(druse.schur, args=case, rounds=rounds, warmup_rounds=1)
+    assert len(p) == terms
     record_rate(benchmark, len(p), "terms", "druse")
 
 
-@pytest.mark.benchmark(group="schur (5,4,3,2,1) n=9")
-def test_small_kernel(benchmark: Any, record_rate: Any) -> None:
-    shape, n = SMALL
-    _, coeffs = benchmark.pedantic(
-        _core.schur_terms, args=(list(shape), n), rounds=20, warmup_rounds=2
-    )
-    assert len(coeffs) == 253692
+@pytest.mark.parametrize("group", CASES)
+def test_kernel(benchmark: Any, record_rate: Any, group: str) -> None:
+    (shape, n), _, rounds, terms, _ = CASES[group]
+    benchmark.group = group
+    args = (list(shape), n)
+    _, coeffs = benchmark.pedantic(_core.schur_terms, args=args, rounds=rounds, warmup_rounds=1)
+    assert len(coeffs) == terms
     record_rate(benchmark, len(coeffs), "terms", "druse-kernel")
 
 
-@pytest.mark.benchmark(group="schur (5,4,3,2,1) n=9")
-def test_small_reference(benchmark: Any, record_rate: Any) -> None:
-    terms = benchmark.pedantic(schur_reference, args=SMALL, rounds=1)
-    assert len(terms) == 253692
-    record_rate(benchmark, len(terms), "terms", "reference")
-
-
-@pytest.mark.benchmark(group="schur (6,5,4,3,2,1) n=10")
-def test_big_druse(benchmark: Any, record_rate: Any) -> None:
-    p = benchmark.pedantic(druse.schur, args=BIG, rounds=5, warmup_rounds=1)
-    assert len(p) == 5900290
-    record_rate(benchmark, len(p), "terms", "druse")
-
-
-@pytest.mark.benchmark(group="schur (6,5,4,3,2,1) n=10")
-def test_big_kernel(benchmark: Any, record_rate: Any) -> None:
-    shape, n = BIG
-    _, coeffs = benchmark.pedantic(
-        _core.schur_terms, args=(list(shape), n), rounds=5, warmup_rounds=1
-    )
-    assert len(coeffs) == 5900290
-    record_rate(benchmark, len(coeffs), "terms", "druse-kernel")
-
-
-@pytest.mark.benchmark(group="schur (6,5,4,3,2,1) n=10")
-def test_big_reference(benchmark: Any, record_rate: Any) -> None:
-    terms = benchmark.pedantic(schur_reference, args=BIG_REFERENCE, rounds=1)
-    assert len(terms) == 262144
-    record_rate(benchmark, len(terms), "terms", "reference")
+@pytest.mark.parametrize("group", CASES)
+def test_reference(benchmark: Any, record_rate: Any, group: str) -> None:
+    _, case, _, _, terms = CASES[group]
+    benchmark.group = group
+    result = benchmark.pedantic(schur_reference, args=case, rounds=1)
+    assert len(result) == terms
+    record_rate(benchmark, len(result), "terms", "reference")

@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import itertools
 from collections import Counter
-from collections.abc import Iterator
 from functools import cache
 from math import factorial, prod
 
@@ -13,20 +12,10 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from druse import kostka
+from reference.tableaux import partitions
 from strategies import partitions as partition_strategy
 
 Shape = tuple[int, ...]
-
-
-def partitions(k: int, largest: int | None = None) -> Iterator[Shape]:
-    """All partitions of k with parts <= largest, in decreasing lexicographic order."""
-    largest = k if largest is None else largest
-    if k == 0:
-        yield ()
-        return
-    for first in range(min(k, largest), 0, -1):
-        for rest in partitions(k - first, first):
-            yield (first, *rest)
 
 
 @cache

@@ -5,7 +5,6 @@ from __future__ import annotations
 import doctest
 import importlib
 import itertools
-from collections.abc import Iterator
 from math import factorial, prod
 
 import numpy as np
@@ -15,6 +14,7 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from druse import TooLargeError, kostka, schur
+from reference.tableaux import partitions
 from strategies import shapes_and_n
 
 # `druse.schur` is the function (re-exported by the package); the module is this one.
@@ -22,17 +22,6 @@ schur_module = importlib.import_module("druse.schur")
 
 Shape = tuple[int, ...]
 Terms = dict[tuple[int, ...], int]
-
-
-def partitions(k: int, largest: int | None = None) -> Iterator[Shape]:
-    """All partitions of k with parts <= largest."""
-    largest = k if largest is None else largest
-    if k == 0:
-        yield ()
-        return
-    for first in range(min(k, largest), 0, -1):
-        for rest in partitions(k - first, first):
-            yield (first, *rest)
 
 
 def hook_content(shape: Shape, n: int) -> int:

@@ -38,9 +38,7 @@ fn sources<'py>(
     ops: Vec<PyReadonlyArray1<'py, i64>>,
     count: usize,
 ) -> PyResult<Bound<'py, PyArray1<i64>>> {
-    let s = slices(&ops)?;
-    crystal::check_arrays(&s, count, "operator")?;
-    Ok(run_detached(py, |_| Ok(crystal::sources(&s, count)))?.into_pyarray(py))
+    per_vertex(py, &ops, count, crystal::sources)
 }
 
 /// Component label of each vertex, components numbered by their smallest vertex.
@@ -50,9 +48,19 @@ fn components<'py>(
     ops: Vec<PyReadonlyArray1<'py, i64>>,
     count: usize,
 ) -> PyResult<Bound<'py, PyArray1<i64>>> {
-    let s = slices(&ops)?;
+    per_vertex(py, &ops, count, crystal::components)
+}
+
+/// Checks the operator arrays, then runs a kernel that gives one value per vertex.
+fn per_vertex<'py>(
+    py: Python<'py>,
+    ops: &[PyReadonlyArray1<'py, i64>],
+    count: usize,
+    kernel: fn(&[&[i64]], usize) -> Vec<i64>,
+) -> PyResult<Bound<'py, PyArray1<i64>>> {
+    let s = slices(ops)?;
     crystal::check_arrays(&s, count, "operator")?;
-    Ok(run_detached(py, |_| Ok(crystal::components(&s, count)))?.into_pyarray(py))
+    Ok(run_detached(py, |_| Ok(kernel(&s, count)))?.into_pyarray(py))
 }
 
 /// Character of the masked vertices: (exponents (terms, n), coefficients).

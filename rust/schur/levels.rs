@@ -111,64 +111,38 @@ impl Level {
     /// The partitions mu of this level with `nu/mu` a horizontal strip (`nu_{j+1} <= mu_j <= nu_j`),
     /// where nu is a partition of the next level: pushes (id(mu), |mu|) for each.
     pub(crate) fn strip_sources(&self, nu: &[u32], out: &mut Vec<(usize, usize)>) {
-        self.strips_from(0, nu, 0, 0, out);
-    }
-
-    fn strips_from(
-        &self,
-        j: usize,
-        nu: &[u32],
-        id: u64,
-        size: usize,
-        out: &mut Vec<(usize, usize)>,
-    ) {
-        if j == self.rows {
-            out.push((
-                usize::try_from(id).expect("ids are below the level size"),
-                size,
-            ));
-            return;
-        }
-        let below = nu.get(j + 1).copied().unwrap_or(0);
-        let (from, to) = (below.max(self.lo[j]), nu[j].min(self.hi[j]));
-        for a in from..=to {
-            let step = self.offset[j][(a - self.lo[j]) as usize];
-            self.strips_from(j + 1, nu, id + step, size + a as usize, out);
-        }
+        let bounds = |j: usize| (nu.get(j + 1).copied().unwrap_or(0), nu[j]);
+        self.walk(0, &bounds, 0, 0, out);
     }
 
     /// The partitions mu of this level with `mu/kappa` a horizontal strip
     /// (`kappa_j <= mu_j <= kappa_{j-1}`), where kappa is a partition of the level below:
     /// pushes (id(mu), |mu|).
     pub(crate) fn strip_supersets(&self, kappa: &[u32], out: &mut Vec<(usize, usize)>) {
-        self.supersets_from(0, kappa, 0, 0, out);
+        let part = |j: usize| kappa.get(j).copied().unwrap_or(0);
+        let bounds = |j: usize| (part(j), if j == 0 { self.hi[0] } else { part(j - 1) });
+        self.walk(0, &bounds, 0, 0, out);
     }
 
-    fn supersets_from(
+    /// Every partition of this level whose part j lies in `bounds(j)` (clipped to the level's own
+    /// range), from row j on, with the id and size accumulated so far: pushes (id, size).
+    fn walk(
         &self,
         j: usize,
-        kappa: &[u32],
+        bounds: &dyn Fn(usize) -> (u32, u32),
         id: u64,
         size: usize,
         out: &mut Vec<(usize, usize)>,
     ) {
         if j == self.rows {
-            out.push((
-                usize::try_from(id).expect("ids are below the level size"),
-                size,
-            ));
+            let id = usize::try_from(id).expect("ids are below the level size");
+            out.push((id, size));
             return;
         }
-        let here = kappa.get(j).copied().unwrap_or(0);
-        let above = if j == 0 {
-            self.hi[0]
-        } else {
-            kappa.get(j - 1).copied().unwrap_or(0)
-        };
-        let (from, to) = (here.max(self.lo[j]), above.min(self.hi[j]));
-        for a in from..=to {
+        let (low, high) = bounds(j);
+        for a in low.max(self.lo[j])..=high.min(self.hi[j]) {
             let step = self.offset[j][(a - self.lo[j]) as usize];
-            self.supersets_from(j + 1, kappa, id + step, size + a as usize, out);
+            self.walk(j + 1, bounds, id + step, size + a as usize, out);
         }
     }
 

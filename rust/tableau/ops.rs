@@ -75,6 +75,14 @@ impl<'a> Around<'a> {
         let (upper, lower) = (m.level(i + 1), m.level(i));
         let (mu_id, nu_id) = (m.sub.id(mu), m.sub.id(nu));
         let before = upper.offset(nu_id, nu, mu) + lower.offset(mu_id, mu, kappa);
+        Self::known([upper, lower], [kappa, mu, nu], [mu_id, nu_id], before)
+    }
+
+    /// From level tables (i+1, i), levels (i-1, i, i+1), ids of levels (i, i+1) and the two rank
+    /// terms they give, already computed.
+    #[inline]
+    fn known(tables: [Level<'a>; 2], lv: [&'a [u16]; 3], ids: [usize; 2], before: u64) -> Self {
+        let ([upper, lower], [kappa, mu, nu], [mu_id, nu_id]) = (tables, lv, ids);
         Around {
             upper,
             lower,
@@ -308,18 +316,9 @@ fn tables_block(m: &Model, cells: &[u8], first: usize, out: &mut [Slices]) {
             if sig.f_row.is_none() && sig.e_row.is_none() {
                 continue;
             }
-            let (upper, lower) = (levels[i], levels[i - 1]);
-            let (mu_id, nu_id, before) = (ids[i], ids[i + 1], terms[i + 1] + terms[i]);
-            let around = Around {
-                upper,
-                lower,
-                kappa,
-                mu,
-                nu,
-                mu_id,
-                nu_id,
-                before,
-            };
+            let tables = [levels[i], levels[i - 1]];
+            let before = terms[i + 1] + terms[i];
+            let around = Around::known(tables, [kappa, mu, nu], [ids[i], ids[i + 1]], before);
             if let Some(r) = sig.f_row {
                 s.f[k] = around.moved(m, v as u64, r, false, &mut tmp);
             }

@@ -11,6 +11,7 @@
 //! is the highest weight tableau (row r filled with r), the last index the lowest weight one.
 #![deny(unsafe_code)]
 
+mod moves;
 mod ops;
 mod tables;
 mod walk;
@@ -134,7 +135,9 @@ mod tests {
         let cells = fill(&m, &Job::default()).unwrap();
         assert!(cells.is_empty());
         let tables = operator_tables(&m, &cells, &Job::default()).unwrap();
-        assert!(tables.iter().all(|op| op.f == [-1] && op.e == [-1] && op.phi == [0]));
+        assert!(tables
+            .iter()
+            .all(|op| op.f == [-1] && op.e == [-1] && op.phi == [0]));
         assert_eq!(weights(&m, &cells, &Job::default()).unwrap(), vec![0; 4]);
         // one row longer than any part fits u16: refused, not wrapped
         assert!(Model::new(&[70_000], 2).is_err());

@@ -9,10 +9,12 @@
 //! counts the entries <= k of row r.
 #![deny(unsafe_code)]
 
+use super::moves::Moves;
 use super::tables::Level;
 use super::Model;
 use crate::error::Error;
 use crate::job::Job;
+use crate::memory::filled;
 use rayon::prelude::*;
 
 const BLOCK: usize = 1 << 13;
@@ -57,57 +59,14 @@ pub fn signature(kappa: &[u16], mu: &[u16], nu: &[u16], rows: usize) -> Signatur
     }
 }
 
-/// The levels around i of one tableau and what the rank differences need of them.
-struct Around<'a> {
-    upper: Level<'a>,
-    lower: Level<'a>,
-    kappa: &'a [u16],
-    mu: &'a [u16],
-    nu: &'a [u16],
-    mu_id: usize,
-    nu_id: usize,
-    before: u64,
-}
-
-impl<'a> Around<'a> {
-    #[inline]
-    fn new(m: &'a Model, i: usize, kappa: &'a [u16], mu: &'a [u16], nu: &'a [u16]) -> Self {
-        let (upper, lower) = (m.level(i + 1), m.level(i));
-        let (mu_id, nu_id) = (m.sub.id(mu), m.sub.id(nu));
-        let before = upper.offset(nu_id, nu, mu) + lower.offset(mu_id, mu, kappa);
-        Self::known([upper, lower], [kappa, mu, nu], [mu_id, nu_id], before)
-    }
-
-    /// From level tables (i+1, i), levels (i-1, i, i+1), ids of levels (i, i+1) and the two rank
-    /// terms they give, already computed.
-    #[inline]
-    fn known(tables: [Level<'a>; 2], lv: [&'a [u16]; 3], ids: [usize; 2], before: u64) -> Self {
-        let ([upper, lower], [kappa, mu, nu], [mu_id, nu_id]) = (tables, lv, ids);
-        Around {
-            upper,
-            lower,
-            kappa,
-            mu,
-            nu,
-            mu_id,
-            nu_id,
-            before,
-        }
-    }
-
-    /// Index of the tableau whose level-i shape is mu with part r moved by one (up: +1), all other
-    /// levels unchanged, given the index `v` of this one. Only the level-i and level-(i+1) rank
-    /// terms change.
-    #[inline]
-    #[allow(clippy::cast_possible_wrap, clippy::cast_sign_loss)]
-    fn moved(&self, m: &Model, v: u64, r: usize, up: bool, tmp: &mut [u16]) -> i64 {
-        tmp.copy_from_slice(self.mu);
-        tmp[r] = if up { self.mu[r] + 1 } else { self.mu[r] - 1 };
-        let new_id = (self.mu_id as isize + m.sub.id_delta(r, self.mu[r], tmp[r])) as usize;
-        let after = self.upper.offset(self.nu_id, self.nu, tmp)
-            + self.lower.offset(new_id, tmp, self.kappa);
-        (v + after - self.before) as i64
-    }
+/// Index of f_i(v) (up = false) or e_i(v) (up = true), which move part r of lambda^(i), from
+/// where the tableau's level-(i+1) pair (lambda^(i+1) over lambda^(i)) and level-i pair
+/// (lambda^(i) over lambda^(i-1)) sit in their tables: rank(v) changes by the two tabulated moves.
+#[inline]
+#[allow(clippy::cast_possible_wrap)] // indices are below 2^63 (checked when the model is built)
+fn target(v: u64, entries: [usize; 2], moves: [&Moves; 2], r: usize, up: bool) -> i64 {
+    let ([upper_entry, lower_entry], [upper, lower]) = (entries, moves);
+    v as i64 + upper.inner(upper_entry, r, up) + lower.outer(lower_entry, r, up)
 }
 
 /// Counts per row of the entries <= k, for k = i-1, i, i+1 (rows past i hold none), in one pass.
@@ -176,8 +135,8 @@ pub fn operator(
     check_i(m, i)?;
     let count = vertex_count(m, cells)?;
     let mut op = Operator {
-        phi: vec![0; count],
-        eps: vec![0; count],
+        phi: filled(count, 0),
+        eps: filled(count, 0),
         ..Operator::default()
     };
     let lengths = op
@@ -185,14 +144,15 @@ pub fn operator(
         .par_chunks_mut(BLOCK)
         .zip(op.eps.par_chunks_mut(BLOCK));
     if targets {
-        (op.f, op.e) = (vec![-1; count], vec![-1; count]);
+        let moves = [Moves::new(m, i + 1), Moves::new(m, i)];
+        (op.f, op.e) = (filled(count, -1), filled(count, -1));
         let ends = op.f.par_chunks_mut(BLOCK).zip(op.e.par_chunks_mut(BLOCK));
         lengths
             .zip(ends)
             .enumerate()
             .try_for_each(|(b, ((phi, eps), (f, e)))| {
                 job.checkpoint(BLOCK as u64)?;
-                operator_block(m, cells, i, b * BLOCK, phi, eps, Some((f, e)));
+                operator_block(m, cells, i, b * BLOCK, phi, eps, Some((f, e, &moves)));
                 Ok(())
             })?;
     } else {
@@ -213,13 +173,13 @@ fn operator_block(
     first: usize,
     phi: &mut [i32],
     eps: &mut [i32],
-    mut targets: Option<(&mut [i64], &mut [i64])>,
+    mut targets: Option<(&mut [i64], &mut [i64], &[Moves; 2])>,
 ) {
     let w = m.rows + 1;
     let c = m.cells.max(1);
     let used = m.rows.min(i + 1);
-    let mut scratch = vec![0u16; 4 * w];
-    let (lv, tmp) = scratch.split_at_mut(3 * w);
+    let (upper, lower) = (m.level(i + 1), m.level(i));
+    let mut lv = vec![0u16; 3 * w];
     for k in 0..phi.len() {
         let v = first + k;
         let t = if m.cells == 0 {
@@ -227,19 +187,23 @@ fn operator_block(
         } else {
             &cells[v * c..(v + 1) * c]
         };
-        three_levels(m, t, i, lv);
+        three_levels(m, t, i, &mut lv);
         let (kappa, rest) = lv.split_at(w);
         let (mu, nu) = rest.split_at(w);
         let sig = signature(kappa, mu, nu, used);
         (phi[k], eps[k]) = (narrow(sig.phi), narrow(sig.eps));
-        if let Some((f, e)) = targets.as_mut() {
+        if let Some((f, e, [up_moves, low_moves])) =
+            targets.as_mut().map(|(f, e, mv)| (f, e, mv.each_ref()))
+        {
             if sig.f_row.is_some() || sig.e_row.is_some() {
-                let around = Around::new(m, i, kappa, mu, nu);
+                let (mu_id, nu_id) = (m.sub.id(mu), m.sub.id(nu));
+                let entries = [upper.entry(nu_id, nu, mu), lower.entry(mu_id, mu, kappa)];
+                let moves = [up_moves, low_moves];
                 if let Some(r) = sig.f_row {
-                    f[k] = around.moved(m, v as u64, r, false, tmp);
+                    f[k] = target(v as u64, entries, moves, r, false);
                 }
                 if let Some(r) = sig.e_row {
-                    e[k] = around.moved(m, v as u64, r, true, tmp);
+                    e[k] = target(v as u64, entries, moves, r, true);
                 }
             }
         }
@@ -260,12 +224,16 @@ struct Slices<'a> {
 pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<Operator>, Error> {
     let count = vertex_count(m, cells)?;
     let blank = || Operator {
-        f: vec![-1; count],
-        e: vec![-1; count],
-        phi: vec![0; count],
-        eps: vec![0; count],
+        f: filled(count, -1),
+        e: filled(count, -1),
+        phi: filled(count, 0),
+        eps: filled(count, 0),
     };
     let mut out: Vec<Operator> = (1..m.n).map(|_| blank()).collect();
+    let moves: Vec<Moves> = (1..=m.n)
+        .into_par_iter()
+        .map(|k| Moves::new(m, k))
+        .collect();
     let mut per_block: Vec<Vec<Slices>> = (0..count.div_ceil(BLOCK)).map(|_| Vec::new()).collect();
     for op in &mut out {
         let ends = op.f.chunks_mut(BLOCK).zip(op.e.chunks_mut(BLOCK));
@@ -279,17 +247,18 @@ pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<Operato
         .enumerate()
         .try_for_each(|(b, mut slices)| {
             job.checkpoint(BLOCK as u64)?;
-            tables_block(m, cells, b * BLOCK, &mut slices);
+            tables_block(m, cells, b * BLOCK, &moves, &mut slices);
             Ok::<_, Error>(())
         })?;
     Ok(out)
 }
 
-fn tables_block(m: &Model, cells: &[u8], first: usize, out: &mut [Slices]) {
+/// `moves[k - 1]` and `levels[k - 1]` belong to level k.
+fn tables_block(m: &Model, cells: &[u8], first: usize, moves: &[Moves], out: &mut [Slices]) {
     let (n, w, c) = (m.n, m.rows + 1, m.cells.max(1));
     let levels: Vec<Level> = (1..=n).map(|k| m.level(k)).collect();
-    let (mut gt, mut tmp) = (vec![0u16; (n + 1) * w], vec![0u16; w]);
-    let (mut ids, mut terms) = (vec![0usize; n + 1], vec![0u64; n + 1]);
+    let mut gt = vec![0u16; (n + 1) * w];
+    let (mut ids, mut entries) = (vec![0usize; n + 1], vec![0usize; n + 1]);
     let len = out.first().map_or(0, |s| s.phi.len());
     for k in 0..len {
         let v = first + k;
@@ -306,7 +275,7 @@ fn tables_block(m: &Model, cells: &[u8], first: usize, out: &mut [Slices]) {
             *id = m.sub.id(level(l));
         }
         for l in 1..=n {
-            terms[l] = levels[l - 1].offset(ids[l], level(l), level(l - 1));
+            entries[l] = levels[l - 1].entry(ids[l], level(l), level(l - 1));
         }
         for i in 1..n {
             let (kappa, mu, nu) = (level(i - 1), level(i), level(i + 1));
@@ -316,14 +285,13 @@ fn tables_block(m: &Model, cells: &[u8], first: usize, out: &mut [Slices]) {
             if sig.f_row.is_none() && sig.e_row.is_none() {
                 continue;
             }
-            let tables = [levels[i], levels[i - 1]];
-            let before = terms[i + 1] + terms[i];
-            let around = Around::known(tables, [kappa, mu, nu], [ids[i], ids[i + 1]], before);
+            let pair = [entries[i + 1], entries[i]];
+            let tables = [&moves[i], &moves[i - 1]];
             if let Some(r) = sig.f_row {
-                s.f[k] = around.moved(m, v as u64, r, false, &mut tmp);
+                s.f[k] = target(v as u64, pair, tables, r, false);
             }
             if let Some(r) = sig.e_row {
-                s.e[k] = around.moved(m, v as u64, r, true, &mut tmp);
+                s.e[k] = target(v as u64, pair, tables, r, true);
             }
         }
     }
@@ -337,7 +305,7 @@ fn narrow(x: u32) -> i32 {
 /// Weight of every vertex: the number of entries equal to k, for k = 1..n, vertex-major.
 pub fn weights(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<i32>, Error> {
     let count = vertex_count(m, cells)?;
-    let mut out = vec![0i32; count * m.n];
+    let mut out = filled(count * m.n, 0i32);
     if m.cells == 0 || m.n == 0 {
         return Ok(out);
     }

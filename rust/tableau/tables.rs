@@ -41,7 +41,9 @@ impl Model {
             )));
         }
         if let Some(&big) = shape.first().filter(|&&p| p > MAX_PART) {
-            return Err(Error::invalid(format!("shape parts must be at most {MAX_PART}; got {big}")));
+            return Err(Error::invalid(format!(
+                "shape parts must be at most {MAX_PART}; got {big}"
+            )));
         }
         let rows = shape.len();
         let cells = shape.iter().sum();
@@ -69,6 +71,16 @@ impl Model {
         model.build_tables()?;
         let lambda = model.padded(&model.shape);
         model.count = model.total(n, &lambda);
+        if model.count > i64::MAX as u64 {
+            return Err(Error::TooLarge {
+                what: format!(
+                    "SSYT({:?}, {n}): {} tableaux, past 2^63",
+                    model.shape, model.count
+                ),
+                bytes: u128::from(model.count),
+                instead: "use count_tableaux for the exact number".into(),
+            });
+        }
         Ok(model)
     }
 
@@ -104,7 +116,7 @@ impl Model {
     }
 
     #[inline]
-    fn box_size(nu: &[u16], free: usize) -> usize {
+    pub fn box_size(nu: &[u16], free: usize) -> usize {
         (0..free)
             .map(|j| usize::from(nu[j] - nu[j + 1] + 1))
             .product()
@@ -328,12 +340,30 @@ pub struct Level<'a> {
 impl Level<'_> {
     #[inline]
     pub fn offset(&self, nu_id: usize, nu: &[u16], mu: &[u16]) -> u64 {
-        self.cum[self.base[nu_id] + Model::local(nu, mu, self.free)]
+        self.cum[self.entry(nu_id, nu, mu)]
+    }
+
+    /// Where the pair (nu, mu) sits in this level's table (nu must be allowed at this level).
+    #[inline]
+    pub fn entry(&self, nu_id: usize, nu: &[u16], mu: &[u16]) -> usize {
+        self.base[nu_id] + Model::local(nu, mu, self.free)
+    }
+
+    /// The pair's rank term, if nu is allowed at this level and mu lies in its box.
+    pub fn try_offset(&self, nu_id: usize, nu: &[u16], mu: &[u16]) -> Option<u64> {
+        let inside = (0..self.free).all(|j| nu[j + 1] <= mu[j] && mu[j] <= nu[j]);
+        let tail_zero = mu[self.free..].iter().all(|&x| x == 0);
+        (self.base[nu_id] != NO_BASE && inside && tail_zero).then(|| self.offset(nu_id, nu, mu))
+    }
+
+    /// Number of entries of this level's table.
+    pub fn len(&self) -> usize {
+        self.cum.len()
     }
 }
 
 /// The `t`-th partition mu covered by nu (the inverse of `Model::local`), into `mu`.
-fn decode(nu: &[u16], mut t: usize, free: usize, mu: &mut [u16]) {
+pub(super) fn decode(nu: &[u16], mut t: usize, free: usize, mu: &mut [u16]) {
     mu[..].fill(0);
     for j in (0..free).rev() {
         let d = usize::from(nu[j] - nu[j + 1] + 1);

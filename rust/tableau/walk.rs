@@ -127,7 +127,7 @@ pub fn fill(model: &Model, job: &Job) -> Result<Vec<u8>, Error> {
     let bytes = total
         .checked_mul(model.cells)
         .ok_or_else(|| too_big(model))?;
-    let mut out = crate::memory::zeroed(bytes);
+    let mut out = crate::memory::filled(bytes, 0u8);
     if model.cells == 0 {
         return Ok(out);
     }

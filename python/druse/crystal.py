@@ -202,8 +202,9 @@ class Crystal:
 class TableauCrystal(Crystal):
     """The crystal B(lambda) of GL_n on semistandard Young tableaux of shape lambda, entries 1..n.
 
-    Vertices are numbered in the order of the Rust enumerator: lexicographic in the chain of
-    shapes (lambda^(n-1), ..., lambda^(1)), lambda^(k) being the cells with entries <= k. The
+    Vertices are numbered in the order of the Rust enumerator: decreasing lexicographic in the
+    chain of shapes (lambda^(n-1), ..., lambda^(1)), lambda^(k) being the cells with entries
+    <= k, so vertex 0 is the highest weight tableau and the last vertex the lowest. The
     operators follow the signature rule on the row reading word (rows bottom to top, each left
     to right; Kashiwara-Nakashima, "Crystal graphs for representations of the q-analogue of
     classical Lie algebras", 1994).

@@ -1,0 +1,243 @@
+"""The ``druse`` command line: counts, Kostka numbers, Schur polynomials, crystals and tableaux.
+
+Every command calls the public API only. Shapes and weights are written ``4,2,1``; the empty
+partition is ``()``, ``""`` or ``0``. Bad input ends with a one-line ``Error: ...`` and a non-zero
+exit status (2 for malformed arguments, 1 for values the library refuses).
+"""
+
+from __future__ import annotations
+
+import json
+import re
+import sys
+from collections.abc import Iterator, Sequence
+from contextlib import contextmanager
+
+import click
+import numpy as np
+
+import druse
+from druse.io import check_export_size, write_crystal_json
+
+#: The summary builds the crystal in full (every f_i, e_i, phi_i, epsilon_i: 24 bytes per vertex
+#: and i) up to this many (vertex, i) pairs, about 500 MB; beyond it, it reports what the count
+#: and the first streamed tableau give.
+SUMMARY_PAIRS = 20_000_000
+
+#: Tableaux printed by ``druse tableaux`` unless --limit says otherwise.
+DEFAULT_LIMIT = 20
+
+
+#: N for the commands that build or stream a crystal: GL_N needs N >= 1.
+LETTERS = click.IntRange(min=1)
+_INTEGER = re.compile(r"-?[0-9]+")
+
+
+def _parts(ctx: click.Context, param: click.Parameter, value: str) -> tuple[int, ...]:
+    """Parse ``4,2,1`` into (4, 2, 1); ``()``, ``""`` and ``0`` are the empty tuple.
+
+    Surrounding parentheses or brackets and spaces are allowed. Whether the tuple is a
+    partition is left to the library, whose message names the rule.
+    """
+    text = value.strip().strip("()[]").strip()
+    if text in ("", "0"):
+        return ()
+    parts = []
+    for piece in text.split(","):
+        piece = piece.strip()
+        if not _INTEGER.fullmatch(piece):
+            raise click.BadParameter(
+                f"{value!r} is not a list of integers like 4,2,1 (bad part {piece!r})"
+            )
+        parts.append(int(piece))
+    return tuple(parts)
+
+
+@contextmanager
+def _library_errors() -> Iterator[None]:
+    """Turn the library's refusals into one-line ``Error:`` messages instead of tracebacks."""
+    try:
+        yield
+    except (ValueError, TypeError) as err:  # TooLargeError is a ValueError
+        raise click.ClickException(str(err)) from err
+    except druse.InternalError as err:
+        raise click.ClickException(f"{err} (please report the command that caused it)") from err
+
+
+def _format_parts(parts: Sequence[int]) -> str:
+    return "(" + ",".join(map(str, parts)) + ")"
+
+
+def _format_tableau(rows: Sequence[Sequence[int]]) -> str:
+    """One tableau on one line, rows top to bottom separated by ``/``; the empty one is ``()``."""
+    if not rows:
+        return "()"
+    return " / ".join(" ".join(map(str, row)) for row in rows)
+
+
+def _rows_of(cells: Sequence[int], shape: Sequence[int]) -> list[list[int]]:
+    rows, start = [], 0
+    for length in shape:
+        rows.append(list(cells[start : start + length]))
+        start += length
+    return rows
+
+
+@click.group(context_settings={"help_option_names": ["-h", "--help"]})
+@click.version_option(druse.__version__, "-V", "--version", prog_name="druse")
+def main() -> None:
+    """Crystals of type A on semistandard Young tableaux, Schur polynomials and Kostka numbers.
+
+    SHAPE and WEIGHT are written 4,2,1; the empty partition is () or 0. N is the number of
+    letters 1..N (the crystal of GL_N). All numbers are exact.
+    """
+
+
+@main.command()
+@click.argument("shape", callback=_parts)
+@click.argument("n", type=int)
+def count(shape: tuple[int, ...], n: int) -> None:
+    """Print the number of semistandard tableaux of SHAPE with entries 1..N."""
+    with _library_errors():
+        click.echo(druse.count_tableaux(shape, n))
+
+
+@main.command()
+@click.argument("shape", callback=_parts)
+@click.argument("weight", callback=_parts)
+def kostka(shape: tuple[int, ...], weight: tuple[int, ...]) -> None:
+    """Print the Kostka number K(SHAPE, WEIGHT): tableaux of SHAPE whose content is WEIGHT."""
+    with _library_errors():
+        click.echo(druse.kostka(shape, weight))
+
+
+@main.command()
+@click.argument("shape", callback=_parts)
+@click.argument("n", type=int)
+@click.option(
+    "--json", "as_json", is_flag=True, help='Print {"nvars": N, "terms": [[exps, c], ...]}.'
+)
+def schur(shape: tuple[int, ...], n: int, as_json: bool) -> None:
+    """Print the Schur polynomial s_SHAPE(x1, ..., xN)."""
+    with _library_errors():
+        poly = druse.schur(shape, n)
+    if as_json:
+        click.echo(json.dumps(poly.to_json(), separators=(",", ":")))
+    else:
+        click.echo(str(poly))
+
+
+@main.command()
+@click.argument("shape", callback=_parts)
+@click.argument("n", type=LETTERS)
+@click.option("--json", "as_json", is_flag=True, help="Print vertices and edges as JSON.")
+@click.option(
+    "--output",
+    "-o",
+    type=click.Path(dir_okay=False, writable=True, allow_dash=True),
+    help="Write the JSON export to this file ('-' for standard output).",
+)
+def crystal(shape: tuple[int, ...], n: int, as_json: bool, output: str | None) -> None:
+    """Summarise the crystal B(SHAPE) of GL_N, or export it as JSON (--json, --output).
+
+    The export (format "druse.crystal", version 1) lists each vertex with its index, tableau
+    rows and weight, and each edge as [source, i, target] meaning f_i(source) = target.
+    """
+    if as_json or output is not None:
+        _export_crystal(shape, n, output)
+    else:
+        _summarise_crystal(shape, n)
+
+
+def _export_crystal(shape: tuple[int, ...], n: int, output: str | None) -> None:
+    with _library_errors():
+        check_export_size(druse.count_tableaux(shape, n))  # refuse before building anything
+        c = druse.crystal(shape, n)
+        if output is None or output == "-":
+            write_crystal_json(c, sys.stdout)
+            return
+        try:
+            write_crystal_json(c, output)
+        except OSError as err:
+            raise click.ClickException(f"cannot write {output}: {err.strerror or err}") from err
+        edges = sum(int(np.count_nonzero(c.f(i) >= 0)) for i in range(1, n))
+    click.echo(f"wrote {len(c)} vertices and {edges} edges to {output}")
+
+
+def _summarise_crystal(shape: tuple[int, ...], n: int) -> None:
+    with _library_errors():  # everything is computed before anything is printed
+        lines = _summary_lines(shape, n)
+    click.echo(f"crystal B{_format_parts(shape)} of GL_{n}")
+    for label, value in lines:
+        click.echo(f"  {label:<19} {value}")
+
+
+def _summary_lines(shape: tuple[int, ...], n: int) -> list[tuple[str, str]]:
+    size = druse.count_tableaux(shape, n)
+    lines = [("vertices", str(size))]
+    if size == 0:
+        return [*lines, ("", f"(empty: the shape has more than {n} rows)")]
+    if size * max(n - 1, 1) > SUMMARY_PAIRS:
+        first = next(druse.iter_tableaux(shape, n, chunk_size=1))[0].tolist()
+        note = f"(more than {SUMMARY_PAIRS:,} (vertex, i) pairs: not built in full; "
+        return [
+            *lines,
+            ("highest weight", f"vertex 0: {_format_tableau(_rows_of(first, shape))}"),
+            ("", note + "`druse tableaux` streams the vertices)"),
+        ]
+    c = druse.crystal(shape, n)
+    c.operator_tables()  # every f_i in one pass
+    top = c.highest_weight()
+    edges = sum(int(np.count_nonzero(c.f(i) >= 0)) for i in range(1, n))
+    return [
+        *lines,
+        ("edges", str(edges)),
+        ("highest weight", f"vertex {top}: {_format_tableau(c.tableau(top))}"),
+        ("its weight", _format_parts(c.weights()[top].tolist())),
+        ("lowest weight", f"vertex {c.lowest_weight()}"),
+        ("character", f"{len(c.character())} distinct weights"),
+        ("components", str(len(np.unique(c.components())))),
+    ]
+
+
+@main.command()
+@click.argument("shape", callback=_parts)
+@click.argument("n", type=LETTERS)
+@click.option(
+    "--limit",
+    "-k",
+    type=click.IntRange(min=0),
+    default=DEFAULT_LIMIT,
+    show_default=True,
+    help="Print at most this many tableaux (0: all of them).",
+)
+@click.option(
+    "--start", type=click.IntRange(min=0), default=0, help="Index of the first tableau printed."
+)
+def tableaux(shape: tuple[int, ...], n: int, limit: int, start: int) -> None:
+    """Print the tableaux of SHAPE with entries 1..N in vertex order, one per line.
+
+    Each line is the vertex index and the rows, top to bottom, separated by '/'. The
+    tableaux are streamed, so any size can be listed with --limit 0.
+    """
+    with _library_errors():
+        total = druse.count_tableaux(shape, n)
+        if total == 0:
+            click.echo(f"no tableaux: the shape has more than {n} rows")
+            return
+        if start >= total:
+            raise click.BadParameter(
+                f"must be below the number of tableaux, {total}; got {start}", param_hint="--start"
+            )
+        wanted = total - start if limit == 0 else min(limit, total - start)
+        chunk = max(1, min(wanted, 1 << 14))
+        printed = 0
+        for block in druse.iter_tableaux(shape, n, chunk_size=chunk, start=start):
+            for cells in block[: wanted - printed].tolist():
+                click.echo(f"{start + printed}: {_format_tableau(_rows_of(cells, shape))}")
+                printed += 1
+            if printed >= wanted:
+                break
+    rest = total - start - printed
+    if rest > 0:
+        click.echo(f"... {rest} more (of {total}); --limit 0 prints all, --start skips ahead")

@@ -47,6 +47,7 @@ lint: ## rustfmt, clippy, ruff, mypy
 	$(RUFF) check $(PYTHON_DIRS)
 	$(MYPY)
 	$(MYPY) benches
+	$(PY) -m mypy.stubtest druse._core  # the stub against the built module
 
 test-rust: ## kernel tests, without Python
 	cargo test --no-default-features

@@ -3,12 +3,23 @@ from typing import TypeAlias
 
 import numpy as np
 import numpy.typing as npt
-from typing_extensions import Self
+from typing_extensions import Self, final
+
+__all__ = [
+    "TableauModel",
+    "character",
+    "components",
+    "kostka_number",
+    "schur_terms",
+    "sources",
+    "string_steps",
+]
 
 _Int64: TypeAlias = npt.NDArray[np.int64]
 _Int32: TypeAlias = npt.NDArray[np.int32]
 _Ops: TypeAlias = tuple[_Int64, _Int64, _Int32, _Int32]
 
+@final
 class TableauModel:
     # Ranking tables of SSYT(shape, n); methods take the array that `enumerate` returned.
     def __new__(cls, shape: list[int], n: int) -> Self: ...

@@ -15,7 +15,14 @@ import numpy as np
 import numpy.typing as npt
 
 from druse import _core
-from druse._check import check_budget, check_index, check_int, check_partition, check_positive_int
+from druse._check import (
+    check_budget,
+    check_index,
+    check_int,
+    check_nonnegative_int,
+    check_partition,
+    check_positive_int,
+)
 from druse.poly import Poly
 from druse.tableaux import count_tableaux, tableau_model
 
@@ -48,7 +55,7 @@ class Crystal:
         weights: npt.ArrayLike | None = None,
     ) -> None:
         self._n = check_positive_int(n, "n")
-        self._size = check_int(size, "size")
+        self._size = check_nonnegative_int(size, "size")
         self._f: dict[int, IntArray] = {}
         self._e: dict[int, IntArray] = {}
         self._phi: dict[int, SmallIntArray] = {}
@@ -68,15 +75,16 @@ class Crystal:
                 f"lowering must hold n - 1 = {self._n - 1} arrays; got {len(lowering)}"
             )
         for i, fi in enumerate(lowering, start=1):
-            self._f[i] = _frozen(np.ascontiguousarray(fi, dtype=np.int64))
+            # a copy: freezing must not touch the caller's own array
+            self._f[i] = _frozen(np.array(fi, dtype=np.int64))
         _core.sources(list(self._f.values()), self._size)  # validates shapes and ranges
         for i in range(1, self._n):
             if raising is None:
                 self._e[i] = _frozen(_inverse(self._f[i]))
             else:
-                self._e[i] = _frozen(np.ascontiguousarray(raising[i - 1], dtype=np.int64))
+                self._e[i] = _frozen(np.array(raising[i - 1], dtype=np.int64))
         if weights is not None:
-            w = np.ascontiguousarray(weights, dtype=np.int32)
+            w = np.array(weights, dtype=np.int32)
             if w.shape != (self._size, self._n):
                 raise ValueError(
                     f"weights must have shape ({self._size}, {self._n}); got {w.shape}"

@@ -6,6 +6,8 @@ from typing import Any
 
 from hypothesis import strategies as st
 
+from druse.poly import Poly
+
 Shape = tuple[int, ...]
 
 
@@ -70,3 +72,11 @@ def shape_like() -> st.SearchStrategy[Any]:
     """Sequences of integers, mostly small, sometimes huge or negative: near-miss partitions."""
     part = st.one_of(st.integers(-3, 12), st.integers(-(2**66), 2**66))
     return st.one_of(st.lists(part, max_size=6), st.tuples(part, part), junk())
+
+
+@st.composite
+def polys(draw: st.DrawFn, nvars: int, max_terms: int = 5) -> Poly:
+    """Small Laurent polynomials whose coefficients reach past 2**64."""
+    exps = st.tuples(*[st.integers(-2, 3)] * nvars)
+    coeffs = st.one_of(st.integers(-3, 3), st.integers(-(2**80), 2**80))
+    return Poly.from_dict(draw(st.dictionaries(exps, coeffs, max_size=max_terms)), nvars)

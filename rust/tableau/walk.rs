@@ -39,7 +39,20 @@ impl<'m> Walker<'m> {
             gt[w] -= 1;
             return Some(1);
         }
-        for k in 2..self.model.n {
+        // Next most often: lambda^(2), at most two parts; lambda^(1) restarts at its top.
+        if self.model.n >= 3 {
+            for j in (0..2.min(rows)).rev() {
+                if gt[2 * w + j] > gt[3 * w + j + 1] {
+                    gt[2 * w + j] -= 1;
+                    if j == 0 && rows > 1 {
+                        gt[2 * w + 1] = gt[3 * w + 1];
+                    }
+                    gt[w] = gt[2 * w];
+                    return Some(2);
+                }
+            }
+        }
+        for k in 3..self.model.n {
             let free = k.min(rows);
             for j in (0..free).rev() {
                 if gt[k * w + j] > gt[(k + 1) * w + j + 1] {

@@ -2,10 +2,12 @@
 //! the bindings in `py/` convert and call them.
 
 pub mod crystal;
+pub mod demazure;
 pub mod error;
 pub mod job;
 pub mod memory;
 pub mod partition;
+pub mod perm;
 pub mod schur;
 pub mod tableau;
 

@@ -1,6 +1,17 @@
 """druse: type A crystals on tableaux, Demazure characters, Schur and key polynomials, exactly."""
 
 from druse.crystal import Crystal, TableauCrystal, crystal
+from druse.demazure import (
+    all_demazure_masks,
+    all_permutations,
+    atom_mask,
+    bruhat_le,
+    demazure_mask,
+    demazure_mask_of,
+    demazure_product,
+    reduced_word,
+    word_permutation,
+)
 from druse.errors import InternalError, TooLargeError
 from druse.poly import Poly
 from druse.schur import kostka, schur
@@ -12,12 +23,21 @@ __all__ = [
     "Poly",
     "TableauCrystal",
     "TooLargeError",
+    "all_demazure_masks",
+    "all_permutations",
+    "atom_mask",
+    "bruhat_le",
     "count_by_enumeration",
     "count_tableaux",
     "crystal",
+    "demazure_mask",
+    "demazure_mask_of",
+    "demazure_product",
     "iter_tableaux",
     "kostka",
+    "reduced_word",
     "schur",
+    "word_permutation",
 ]
 
 __version__ = "0.1.0"

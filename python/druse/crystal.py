@@ -192,6 +192,23 @@ class Crystal:
         exps, coeffs = _core.character(self.weights(), m)
         return Poly._from_arrays(exps, coeffs, self._n)
 
+    def demazure(self, word: Sequence[int]) -> BoolArray:
+        """The Demazure crystal of w = s_{i1}...s_{ik} for ``word`` = (i1, ..., ik), as a read-only
+        bool mask of length len(C): D_{i1}(...D_{ik}(highest weights)), D_{ik} applied first,
+        D_i(X) = {f_i^k x : x in X, k >= 0}. A word that is not reduced gives the Demazure crystal
+        of its Demazure product. See :func:`druse.demazure_mask`.
+
+        Examples
+        --------
+        >>> import druse
+        >>> C = druse.crystal((2, 1), 3)
+        >>> int(C.demazure(()).sum()), int(C.demazure((1, 2, 1)).sum())
+        (1, 8)
+        """
+        from druse.demazure import demazure_mask  # druse.demazure imports this module
+
+        return demazure_mask(self, word)
+
     def edges(self) -> IntArray:
         """All arrows as an (E, 3) int64 array of rows (source, i, target), by i then source."""
         parts = []

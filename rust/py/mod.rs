@@ -1,5 +1,6 @@
 //! PyO3 bindings: conversions only, one file per kernel module.
 mod crystal;
+mod demazure;
 mod errors;
 mod run;
 mod schur;
@@ -11,5 +12,6 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     tableau::register(m)?;
     crystal::register(m)?;
     schur::register(m)?;
+    demazure::register(m)?;
     Ok(())
 }

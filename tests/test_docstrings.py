@@ -1,0 +1,25 @@
+"""Every Examples section of the public modules runs and prints what it says."""
+
+from __future__ import annotations
+
+import doctest
+import importlib
+
+import pytest
+
+MODULES = [
+    "druse.crystal",
+    "druse.demazure",
+    "druse.io",
+    "druse.poly",
+    "druse.schur",
+    "druse.tableaux",
+]
+
+
+@pytest.mark.parametrize("name", MODULES)
+def test_examples_run(name: str) -> None:
+    module = importlib.import_module(name)
+    failed, attempted = doctest.testmod(module, optionflags=doctest.ELLIPSIS)
+    assert failed == 0
+    assert attempted > 0, f"{name} has no examples"

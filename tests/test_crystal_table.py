@@ -75,3 +75,13 @@ def test_bad_tables_are_refused(kwargs: dict[str, object], message: str) -> None
 def test_negative_size_is_refused() -> None:
     with pytest.raises(ValueError, match="size must be non-negative"):
         druse.Crystal(2, -1)
+
+
+def test_lowering_tables_alone_then_everything_else_on_demand() -> None:
+    C, D = druse.crystal((3, 2, 1), 4), druse.crystal((3, 2, 1), 4)
+    C.lowering_tables()  # f_i only
+    D.operator_tables()  # f_i, e_i, phi_i, epsilon_i
+    for i in range(1, 4):
+        assert np.array_equal(C.f(i), D.f(i))
+        assert np.array_equal(C.e(i), D.e(i))  # computed when first asked for
+        assert np.array_equal(C.phi(i), D.phi(i))

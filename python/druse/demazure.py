@@ -69,7 +69,7 @@ def _crystal(C: Any) -> Crystal:
 
 def _table(C: Crystal) -> tuple[list[npt.NDArray[np.int64]], list[int]]:
     if isinstance(C, TableauCrystal) and C.n > 1 and any(i not in C._f for i in range(1, C.n)):
-        C.operator_tables()  # all f_i in one pass: faster than one i at a time
+        C.lowering_tables()  # all f_i in one pass: faster than one i at a time
     ops = [C.f(i) for i in range(1, C.n)]
     if isinstance(C, TableauCrystal):  # connected: u_lambda is found by rank, without a scan
         return ops, [C.highest_weight()] if len(C) else []

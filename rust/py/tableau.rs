@@ -139,14 +139,16 @@ impl TableauModel {
         Ok(to_numpy(py, op))
     }
 
-    /// The same for every i = 1..n-1, computed in parallel over i.
+    /// The same for every i = 1..n-1 in one pass; with `lowering_only`, e, phi, epsilon are empty.
+    #[pyo3(signature = (tableaux, lowering_only=false))]
     fn operator_tables<'py>(
         &self,
         py: Python<'py>,
         tableaux: PyReadonlyArray2<'py, u8>,
+        lowering_only: bool,
     ) -> PyResult<Vec<Arrays4<'py>>> {
         let (m, t) = (&self.model, cells(&tableaux)?);
-        let ops = run_detached(py, |job| tableau::operator_tables(m, t, job))?;
+        let ops = run_detached(py, |job| tableau::operator_tables(m, t, lowering_only, job))?;
         Ok(ops.into_iter().map(|op| to_numpy(py, op)).collect())
     }
 

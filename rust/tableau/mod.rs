@@ -98,7 +98,12 @@ mod tests {
     fn operators_are_partial_inverses() {
         let m = Model::new(&[3, 2, 1], 4).unwrap();
         let all = fill(&m, &Job::default()).unwrap();
-        let tables = operator_tables(&m, &all, &Job::default()).unwrap();
+        let tables = operator_tables(&m, &all, false, &Job::default()).unwrap();
+        let lowering = operator_tables(&m, &all, true, &Job::default()).unwrap();
+        assert!(lowering
+            .iter()
+            .zip(&tables)
+            .all(|(l, t)| l.f == t.f && l.e.is_empty()));
         // 64 = hook-content count of (3,2,1) with n = 4 (Stanley, EC2, Cor. 7.21.4).
         assert_eq!(tables[0].f.len(), 64);
         for (i, op) in tables.iter().enumerate() {
@@ -134,7 +139,7 @@ mod tests {
         assert_eq!(m.count(), 1);
         let cells = fill(&m, &Job::default()).unwrap();
         assert!(cells.is_empty());
-        let tables = operator_tables(&m, &cells, &Job::default()).unwrap();
+        let tables = operator_tables(&m, &cells, false, &Job::default()).unwrap();
         assert!(tables
             .iter()
             .all(|op| op.f == [-1] && op.e == [-1] && op.phi == [0]));

@@ -221,13 +221,21 @@ struct Slices<'a> {
 /// Every operator i = 1..n-1 at once. Each vertex's pattern, level ids and rank terms are read
 /// once and shared by all i; blocks of vertices run in parallel, each writing its own slices of
 /// the (n-1) x 4 output arrays, so every output stays contiguous per i without a transpose.
-pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<Operator>, Error> {
+/// With `lowering_only`, only the f_i are filled (e, phi and epsilon stay empty): what a
+/// Demazure closure needs, at about half the cost.
+pub fn operator_tables(
+    m: &Model,
+    cells: &[u8],
+    lowering_only: bool,
+    job: &Job,
+) -> Result<Vec<Operator>, Error> {
     let count = vertex_count(m, cells)?;
+    let rest = if lowering_only { 0 } else { count };
     let blank = || Operator {
         f: filled(count, -1),
-        e: filled(count, -1),
-        phi: filled(count, 0),
-        eps: filled(count, 0),
+        e: filled(rest, -1),
+        phi: filled(rest, 0),
+        eps: filled(rest, 0),
     };
     let mut out: Vec<Operator> = (1..m.n).map(|_| blank()).collect();
     let moves: Vec<Moves> = (1..=m.n)
@@ -236,9 +244,15 @@ pub fn operator_tables(m: &Model, cells: &[u8], job: &Job) -> Result<Vec<Operato
         .collect();
     let mut per_block: Vec<Vec<Slices>> = (0..count.div_ceil(BLOCK)).map(|_| Vec::new()).collect();
     for op in &mut out {
-        let ends = op.f.chunks_mut(BLOCK).zip(op.e.chunks_mut(BLOCK));
-        let lengths = op.phi.chunks_mut(BLOCK).zip(op.eps.chunks_mut(BLOCK));
-        for (b, ((f, e), (phi, eps))) in ends.zip(lengths).enumerate() {
+        let (mut e, mut phi) = (op.e.chunks_mut(BLOCK), op.phi.chunks_mut(BLOCK));
+        let mut eps = op.eps.chunks_mut(BLOCK);
+        for (b, f) in op.f.chunks_mut(BLOCK).enumerate() {
+            let (e, phi, eps) = (e.next(), phi.next(), eps.next()); // None when lowering only
+            let (e, phi, eps) = (
+                e.unwrap_or_default(),
+                phi.unwrap_or_default(),
+                eps.unwrap_or_default(),
+            );
             per_block[b].push(Slices { f, e, phi, eps });
         }
     }
@@ -259,7 +273,7 @@ fn tables_block(m: &Model, cells: &[u8], first: usize, moves: &[Moves], out: &mu
     let levels: Vec<Level> = (1..=n).map(|k| m.level(k)).collect();
     let mut gt = vec![0u16; (n + 1) * w];
     let (mut ids, mut entries) = (vec![0usize; n + 1], vec![0usize; n + 1]);
-    let len = out.first().map_or(0, |s| s.phi.len());
+    let len = out.first().map_or(0, |s| s.f.len());
     for k in 0..len {
         let v = first + k;
         m.pattern(
@@ -281,7 +295,10 @@ fn tables_block(m: &Model, cells: &[u8], first: usize, moves: &[Moves], out: &mu
             let (kappa, mu, nu) = (level(i - 1), level(i), level(i + 1));
             let sig = signature(kappa, mu, nu, m.rows.min(i + 1));
             let s = &mut out[i - 1];
-            (s.phi[k], s.eps[k]) = (narrow(sig.phi), narrow(sig.eps));
+            let full = !s.phi.is_empty();
+            if full {
+                (s.phi[k], s.eps[k]) = (narrow(sig.phi), narrow(sig.eps));
+            }
             if sig.f_row.is_none() && sig.e_row.is_none() {
                 continue;
             }
@@ -290,7 +307,7 @@ fn tables_block(m: &Model, cells: &[u8], first: usize, moves: &[Moves], out: &mu
             if let Some(r) = sig.f_row {
                 s.f[k] = target(v as u64, pair, tables, r, false);
             }
-            if let Some(r) = sig.e_row {
+            if let Some(r) = sig.e_row.filter(|_| full) {
                 s.e[k] = target(v as u64, pair, tables, r, true);
             }
         }

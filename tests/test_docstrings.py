@@ -13,6 +13,7 @@ MODULES = [
     "druse.io",
     "druse.poly",
     "druse.schur",
+    "druse.tableau_keys",
     "druse.tableaux",
 ]
 

@@ -15,6 +15,14 @@ from druse.demazure import (
 from druse.errors import InternalError, TooLargeError
 from druse.poly import Poly
 from druse.schur import kostka, schur
+from druse.tableau_keys import (
+    left_key,
+    left_key_weights,
+    left_keys,
+    right_key,
+    right_key_weights,
+    right_keys,
+)
 from druse.tableaux import count_by_enumeration, count_tableaux, iter_tableaux
 
 __all__ = [
@@ -35,7 +43,13 @@ __all__ = [
     "demazure_product",
     "iter_tableaux",
     "kostka",
+    "left_key",
+    "left_key_weights",
+    "left_keys",
     "reduced_word",
+    "right_key",
+    "right_key_weights",
+    "right_keys",
     "schur",
     "word_permutation",
 ]

@@ -2,6 +2,7 @@
 mod crystal;
 mod demazure;
 mod errors;
+mod keys;
 mod run;
 mod schur;
 mod tableau;
@@ -13,5 +14,6 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     crystal::register(m)?;
     schur::register(m)?;
     demazure::register(m)?;
+    keys::register(m)?;
     Ok(())
 }

@@ -11,11 +11,13 @@
 //! is the highest weight tableau (row r filled with r), the last index the lowest weight one.
 #![deny(unsafe_code)]
 
+mod keys;
 mod moves;
 mod ops;
 mod tables;
 mod walk;
 
+pub use keys::{keys, KeySide, Keys};
 pub use ops::{operator, operator_tables, signature, weights, Operator, Signature};
 pub use tables::Model;
 pub use walk::{fill, fill_range as walk_range, scan, Walker};

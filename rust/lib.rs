@@ -8,6 +8,7 @@ pub mod job;
 pub mod memory;
 pub mod partition;
 pub mod perm;
+pub mod poly;
 pub mod schur;
 pub mod tableau;
 

@@ -10,7 +10,9 @@ import pytest
 MODULES = [
     "druse.crystal",
     "druse.demazure",
+    "druse.expansion",
     "druse.io",
+    "druse.key",
     "druse.poly",
     "druse.schur",
     "druse.tableau_keys",

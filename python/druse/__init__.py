@@ -13,6 +13,20 @@ from druse.demazure import (
     word_permutation,
 )
 from druse.errors import InternalError, TooLargeError
+from druse.expansion import (
+    Positivity,
+    atom_expansion,
+    key_expansion,
+    positivity,
+    schur_expansion,
+)
+from druse.key import (
+    atom,
+    demazure_atom_operator,
+    divided_difference,
+    isobaric_divided_difference,
+    key,
+)
 from druse.poly import Poly
 from druse.schur import kostka, schur
 from druse.tableau_keys import (
@@ -29,28 +43,38 @@ __all__ = [
     "Crystal",
     "InternalError",
     "Poly",
+    "Positivity",
     "TableauCrystal",
     "TooLargeError",
     "all_demazure_masks",
     "all_permutations",
+    "atom",
+    "atom_expansion",
     "atom_mask",
     "bruhat_le",
     "count_by_enumeration",
     "count_tableaux",
     "crystal",
+    "demazure_atom_operator",
     "demazure_mask",
     "demazure_mask_of",
     "demazure_product",
+    "divided_difference",
+    "isobaric_divided_difference",
     "iter_tableaux",
+    "key",
+    "key_expansion",
     "kostka",
     "left_key",
     "left_key_weights",
     "left_keys",
+    "positivity",
     "reduced_word",
     "right_key",
     "right_key_weights",
     "right_keys",
     "schur",
+    "schur_expansion",
     "word_permutation",
 ]
 

@@ -7,16 +7,19 @@ from typing_extensions import Self, final
 
 __all__ = [
     "TableauModel",
+    "atom_terms",
     "character",
     "components",
     "demazure_all",
     "demazure_atom",
     "demazure_closure",
+    "key_terms",
     "kostka_number",
     "perm_bruhat_le",
     "perm_length",
     "perm_of_word",
     "perm_reduced_word",
+    "poly_operator",
     "schur_terms",
     "sources",
     "string_steps",
@@ -67,3 +70,8 @@ def perm_bruhat_le(u: list[int], v: list[int]) -> bool: ...
 def tableau_keys(
     shape: list[int], n: int, cells: npt.NDArray[np.uint8], which: str
 ) -> tuple[npt.NDArray[np.uint8], _Int32]: ...
+def key_terms(alpha: list[int]) -> tuple[_Int64, list[int]]: ...
+def atom_terms(alpha: list[int]) -> tuple[_Int64, list[int]]: ...
+def poly_operator(
+    exps: _Int64, coeffs: list[int], nvars: int, kind: str, i: int
+) -> tuple[_Int64, list[int]]: ...

@@ -3,6 +3,7 @@ mod crystal;
 mod demazure;
 mod errors;
 mod keys;
+mod poly;
 mod run;
 mod schur;
 mod tableau;
@@ -13,6 +14,7 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     tableau::register(m)?;
     crystal::register(m)?;
     schur::register(m)?;
+    poly::register(m)?;
     demazure::register(m)?;
     keys::register(m)?;
     Ok(())

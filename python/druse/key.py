@@ -41,7 +41,7 @@ def _composition(alpha: Any) -> tuple[int, ...]:
     return parts
 
 
-def key(alpha: Sequence[int]) -> Poly:
+def key(alpha: Sequence[int], method: str = "operators") -> Poly:
     """The key polynomial (Demazure character) kappa_alpha in x1..xn, n = len(alpha).
 
     kappa_alpha = x^alpha if alpha is weakly decreasing; otherwise kappa_alpha = pi_i
@@ -53,6 +53,11 @@ def key(alpha: Sequence[int]) -> Poly:
     ----------
     alpha : sequence of int
         A weak composition: non-negative parts; its length is the number of variables.
+    method : {"operators", "crystal"}
+        ``"operators"`` (the default, fastest) applies the pi_i in Rust. ``"crystal"`` takes the
+        character of the Demazure crystal B_w(lambda) inside B(lambda), lambda = alpha sorted
+        and w the shortest permutation with w.lambda = alpha (the Demazure character formula:
+        Demazure 1974; Kashiwara 1993; Littelmann 1995): an independent route, for checking.
 
     Returns
     -------
@@ -76,12 +81,14 @@ def key(alpha: Sequence[int]) -> Poly:
     True
     """
     parts = _composition(alpha)
+    if _route(method) == "crystal":
+        return _by_crystal(parts, atom=False)
     exps, coeffs = _core.key_terms(list(parts))
     # The kernel returns Poly's canonical form (distinct rows, decreasing, nonzero coefficients).
     return Poly._canonical(exps, coeffs, len(parts))
 
 
-def atom(alpha: Sequence[int]) -> Poly:
+def atom(alpha: Sequence[int], method: str = "operators") -> Poly:
     """The Demazure atom A_alpha in x1..xn, n = len(alpha).
 
     A_alpha = x^alpha if alpha is weakly decreasing; otherwise A_alpha = (pi_i - 1)
@@ -115,8 +122,43 @@ def atom(alpha: Sequence[int]) -> Poly:
     Poly('x1*x2*x3 + x2^2*x3', nvars=3)
     """
     parts = _composition(alpha)
+    if _route(method) == "crystal":
+        return _by_crystal(parts, atom=True)
     exps, coeffs = _core.atom_terms(list(parts))
     return Poly._canonical(exps, coeffs, len(parts))
+
+
+def _route(method: Any) -> str:
+    if method not in ("operators", "crystal"):
+        raise ValueError(f"method must be 'operators' or 'crystal'; got {method!r}")
+    return str(method)
+
+
+def shortest_permutation(alpha: Sequence[int]) -> tuple[int, ...]:
+    """The shortest permutation w with w.lambda = alpha, lambda = alpha sorted decreasingly, in
+    the convention (w.lambda)_{w(j)} = lambda_j: equal parts keep their relative order.
+
+    Examples
+    --------
+    >>> shortest_permutation((1, 0, 3, 2, 0))
+    (3, 4, 1, 2, 5)
+    """
+    parts = _composition(alpha)
+    order = sorted(range(len(parts)), key=lambda p: (-parts[p], p))  # positions of lambda_1, ...
+    return tuple(p + 1 for p in order)
+
+
+def _by_crystal(parts: tuple[int, ...], atom: bool) -> Poly:
+    # imported here: druse.crystal and druse.demazure sit above this module
+    from druse.crystal import crystal
+    from druse.demazure import atom_mask, demazure_mask_of
+
+    n = len(parts)
+    if n == 0:
+        return Poly.one(0)
+    C = crystal(sorted(parts, reverse=True), n)
+    w = shortest_permutation(parts)
+    return C.character(atom_mask(C, w) if atom else demazure_mask_of(C, w))
 
 
 def _operator(p: Any, i: Any, kind: str, name: str) -> Poly:

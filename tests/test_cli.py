@@ -10,10 +10,9 @@ from typing import Any
 
 import numpy as np
 import pytest
-from click.testing import CliRunner, Result
 
 import druse
-from druse.cli import main
+from clirun import ok, refused
 from druse.io import (
     CRYSTAL_FORMAT,
     EXPORT_LIMIT,
@@ -22,28 +21,6 @@ from druse.io import (
     write_crystal_json,
     write_json,
 )
-
-
-def run(*args: str) -> Result:
-    return CliRunner().invoke(main, list(args))
-
-
-def ok(*args: str) -> str:
-    result = run(*args)
-    assert result.exit_code == 0, result.output
-    return result.stdout
-
-
-def refused(*args: str, code: int = 1) -> str:
-    """Run a command that must fail with a one-line ``Error:`` and no traceback."""
-    result = run(*args)
-    assert result.exit_code == code, result.output
-    assert isinstance(result.exception, SystemExit), result.exception
-    assert "Traceback" not in result.output
-    errors = [line for line in result.output.splitlines() if line.startswith("Error:")]
-    assert len(errors) == 1, result.output
-    return errors[0]
-
 
 # --- top level ---------------------------------------------------------------------------------
 

@@ -1,0 +1,74 @@
+"""Helpers shared by the command line's modules: argument parsing, error reporting, formats."""
+
+from __future__ import annotations
+
+import re
+from collections.abc import Iterator, Sequence
+from contextlib import contextmanager
+
+import click
+
+import druse
+
+#: The summary builds the crystal in full (every f_i, e_i, phi_i, epsilon_i: 24 bytes per vertex
+#: and i) up to this many (vertex, i) pairs, about 500 MB; beyond it, it reports what the count
+#: and the first streamed tableau give.
+SUMMARY_PAIRS = 20_000_000
+
+#: Tableaux printed by ``druse tableaux`` unless --limit says otherwise.
+DEFAULT_LIMIT = 20
+
+
+#: N for the commands that build or stream a crystal: GL_N needs N >= 1.
+LETTERS = click.IntRange(min=1)
+_INTEGER = re.compile(r"-?[0-9]+")
+
+
+def _parts(ctx: click.Context, param: click.Parameter, value: str) -> tuple[int, ...]:
+    """Parse ``4,2,1`` into (4, 2, 1); ``()``, ``""`` and ``0`` are the empty tuple.
+
+    Surrounding parentheses or brackets and spaces are allowed. Whether the tuple is a
+    partition is left to the library, whose message names the rule.
+    """
+    text = value.strip().strip("()[]").strip()
+    if text in ("", "0"):
+        return ()
+    parts = []
+    for piece in text.split(","):
+        piece = piece.strip()
+        if not _INTEGER.fullmatch(piece):
+            raise click.BadParameter(
+                f"{value!r} is not a list of integers like 4,2,1 (bad part {piece!r})"
+            )
+        parts.append(int(piece))
+    return tuple(parts)
+
+
+@contextmanager
+def _library_errors() -> Iterator[None]:
+    """Turn the library's refusals into one-line ``Error:`` messages instead of tracebacks."""
+    try:
+        yield
+    except (ValueError, TypeError) as err:  # TooLargeError is a ValueError
+        raise click.ClickException(str(err)) from err
+    except druse.InternalError as err:
+        raise click.ClickException(f"{err} (please report the command that caused it)") from err
+
+
+def _format_parts(parts: Sequence[int]) -> str:
+    return "(" + ",".join(map(str, parts)) + ")"
+
+
+def _format_tableau(rows: Sequence[Sequence[int]]) -> str:
+    """One tableau on one line, rows top to bottom separated by ``/``; the empty one is ``()``."""
+    if not rows:
+        return "()"
+    return " / ".join(" ".join(map(str, row)) for row in rows)
+
+
+def _rows_of(cells: Sequence[int], shape: Sequence[int]) -> list[list[int]]:
+    rows, start = [], 0
+    for length in shape:
+        rows.append(list(cells[start : start + length]))
+        start += length
+    return rows

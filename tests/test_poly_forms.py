@@ -313,3 +313,9 @@ def test_hash_equality_pickle_copy() -> None:
 
 
 # -- arithmetic ----------------------------------------------------------------------------------
+
+
+@pytest.mark.parametrize("text", ["x1/2", "0.5*x1", "2*x1^1.5"])
+def test_text_with_a_fraction_names_the_integer_rule(text: str) -> None:
+    with pytest.raises(ValueError, match="must be integers"):
+        Poly(text, nvars=2)

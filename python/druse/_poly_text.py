@@ -147,7 +147,8 @@ def text_terms(text: str, n: int) -> tuple[IntArray, list[int]]:
                 break
             pos += 1
         if pos < len(s) and s[pos] not in "+-":
-            raise ValueError(f"cannot read {text!r}: expected '+', '-' or '*' at {s[pos:]!r}")
+            rule = " (coefficients and exponents must be integers)" if s[pos] in "./" else ""
+            raise ValueError(f"cannot read {text!r}: expected '+', '-' or '*' at {s[pos:]!r}{rule}")
         rows.append(list(exponent_row(row, None, f"exponents in {text!r}")))
         coeffs.append(coeff)
     return _row_array(rows, n), coeffs

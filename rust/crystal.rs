@@ -107,17 +107,21 @@ pub fn components(f: &[&[i64]], count: usize) -> Vec<i64> {
 }
 
 /// The character sum over masked vertices of x^wt(v): distinct weights (terms x n, row-major)
-/// in decreasing lexicographic order, with their multiplicities. `weights` is vertex-major.
+/// in decreasing lexicographic order, with their multiplicities. `weights` is vertex-major,
+/// `count` x `n` (the count is given because with n = 0 the weights cannot tell it).
 pub fn character(
     weights: &[i32],
     n: usize,
+    count: usize,
     mask: Option<&[bool]>,
     job: &Job,
 ) -> Result<(Vec<i32>, Vec<u64>), Error> {
-    let count = weights
-        .len()
-        .checked_div(n)
-        .unwrap_or_else(|| mask.map_or(0, <[bool]>::len));
+    if weights.len() != count * n {
+        return Err(Error::invalid(format!(
+            "weights must have {count} x {n} entries; got {}",
+            weights.len()
+        )));
+    }
     if let Some(m) = mask {
         if m.len() != count {
             return Err(Error::invalid(format!(
@@ -180,8 +184,13 @@ mod tests {
     #[test]
     fn character_counts_weights() {
         let w = vec![1, 0, 0, 1, 1, 0];
-        let (exps, coeffs) = character(&w, 2, None, &Job::default()).unwrap();
+        let (exps, coeffs) = character(&w, 2, 3, None, &Job::default()).unwrap();
         assert_eq!(exps, vec![1, 0, 0, 1]);
         assert_eq!(coeffs, vec![2, 1]);
+        // n = 0: every kept vertex has the empty weight; the count comes from the caller
+        let kept = [true, false, true];
+        let (exps, coeffs) = character(&[], 0, 3, Some(&kept), &Job::default()).unwrap();
+        assert_eq!((exps, coeffs), (vec![], vec![2]));
+        assert!(character(&w, 2, 4, None, &Job::default()).is_err());
     }
 }

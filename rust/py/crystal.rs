@@ -1,5 +1,5 @@
 //! Bindings for `crystal`: algorithms on any crystal table.
-use super::run::{run_detached, run_quick};
+use super::run::run_detached;
 use crate::crystal;
 use crate::error::Error;
 use numpy::ndarray::Array2;
@@ -83,18 +83,7 @@ fn character<'py>(
         None => None,
     };
     let count = weights.shape()[0];
-    let (exps, coeffs) = if n == 0 {
-        let kept = m.map_or(count, |m| m.iter().filter(|&&b| b).count()) as u64;
-        run_quick(|| {
-            Ok(if kept > 0 {
-                (vec![], vec![kept])
-            } else {
-                (vec![], vec![])
-            })
-        })?
-    } else {
-        run_detached(py, |job| crystal::character(w, n, m, job))?
-    };
+    let (exps, coeffs) = run_detached(py, |job| crystal::character(w, n, count, m, job))?;
     let terms = coeffs.len();
     let exps: Vec<i64> = exps.into_iter().map(i64::from).collect();
     let arr = Array2::from_shape_vec((terms, n), exps)

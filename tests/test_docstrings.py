@@ -17,6 +17,7 @@ MODULES = [
     "druse.schur",
     "druse.tableau_keys",
     "druse.tableaux",
+    "druse.user_crystal",
 ]
 
 

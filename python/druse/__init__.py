@@ -20,6 +20,7 @@ from druse.expansion import (
     positivity,
     schur_expansion,
 )
+from druse.io import load_crystal, save_crystal
 from druse.key import (
     atom,
     demazure_atom_operator,
@@ -38,10 +39,12 @@ from druse.tableau_keys import (
     right_keys,
 )
 from druse.tableaux import count_by_enumeration, count_tableaux, iter_tableaux
+from druse.user_crystal import LabelledCrystal, crystal_from_edges, crystal_from_operators
 
 __all__ = [
     "Crystal",
     "InternalError",
+    "LabelledCrystal",
     "Poly",
     "Positivity",
     "TableauCrystal",
@@ -55,6 +58,8 @@ __all__ = [
     "count_by_enumeration",
     "count_tableaux",
     "crystal",
+    "crystal_from_edges",
+    "crystal_from_operators",
     "demazure_atom_operator",
     "demazure_mask",
     "demazure_mask_of",
@@ -68,11 +73,13 @@ __all__ = [
     "left_key",
     "left_key_weights",
     "left_keys",
+    "load_crystal",
     "positivity",
     "reduced_word",
     "right_key",
     "right_key_weights",
     "right_keys",
+    "save_crystal",
     "schur",
     "schur_expansion",
     "word_permutation",

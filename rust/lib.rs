@@ -5,12 +5,14 @@ pub mod crystal;
 pub mod demazure;
 pub mod error;
 pub mod job;
+pub mod lr;
 pub mod memory;
 pub mod partition;
 pub mod perm;
 pub mod poly;
 pub mod schur;
 pub mod tableau;
+pub mod tensor;
 
 #[cfg(feature = "python")]
 #[allow(clippy::needless_pass_by_value)] // PyO3 hands extracted arguments over by value

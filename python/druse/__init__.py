@@ -28,6 +28,7 @@ from druse.key import (
     isobaric_divided_difference,
     key,
 )
+from druse.lr import LRTable, lr, lr_by_crystal, lr_table
 from druse.poly import Poly
 from druse.schur import kostka, schur
 from druse.tableau_keys import (
@@ -39,15 +40,18 @@ from druse.tableau_keys import (
     right_keys,
 )
 from druse.tableaux import count_by_enumeration, count_tableaux, iter_tableaux
+from druse.tensor import TensorCrystal, tensor_product
 from druse.user_crystal import LabelledCrystal, crystal_from_edges, crystal_from_operators
 
 __all__ = [
     "Crystal",
     "InternalError",
+    "LRTable",
     "LabelledCrystal",
     "Poly",
     "Positivity",
     "TableauCrystal",
+    "TensorCrystal",
     "TooLargeError",
     "all_demazure_masks",
     "all_permutations",
@@ -74,6 +78,9 @@ __all__ = [
     "left_key_weights",
     "left_keys",
     "load_crystal",
+    "lr",
+    "lr_by_crystal",
+    "lr_table",
     "positivity",
     "reduced_word",
     "right_key",
@@ -82,6 +89,7 @@ __all__ = [
     "save_crystal",
     "schur",
     "schur_expansion",
+    "tensor_product",
     "word_permutation",
 ]
 

@@ -15,6 +15,8 @@ __all__ = [
     "demazure_closure",
     "key_terms",
     "kostka_number",
+    "lr_batch",
+    "lr_terms",
     "perm_bruhat_le",
     "perm_length",
     "perm_of_word",
@@ -24,6 +26,7 @@ __all__ = [
     "sources",
     "string_steps",
     "tableau_keys",
+    "tensor_tables",
 ]
 
 _Int64: TypeAlias = npt.NDArray[np.int64]
@@ -75,3 +78,10 @@ def atom_terms(alpha: list[int]) -> tuple[_Int64, list[int]]: ...
 def poly_operator(
     exps: _Int64, coeffs: list[int], nvars: int, kind: str, i: int
 ) -> tuple[_Int64, list[int]]: ...
+
+_Factor: TypeAlias = tuple[list[_Int64], list[_Int64], list[_Int32], list[_Int32], _Int32]
+_Terms: TypeAlias = list[tuple[list[int], int]]
+
+def tensor_tables(n: int, left: _Factor, right: _Factor) -> tuple[list[_Ops], _Int32]: ...
+def lr_terms(mu: list[int], nu: list[int]) -> _Terms: ...
+def lr_batch(pairs: list[tuple[list[int], list[int]]]) -> list[_Terms]: ...

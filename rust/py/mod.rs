@@ -3,10 +3,12 @@ mod crystal;
 mod demazure;
 mod errors;
 mod keys;
+mod lr;
 mod poly;
 mod run;
 mod schur;
 mod tableau;
+mod tensor;
 
 use pyo3::prelude::*;
 
@@ -17,5 +19,7 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     poly::register(m)?;
     demazure::register(m)?;
     keys::register(m)?;
+    tensor::register(m)?;
+    lr::register(m)?;
     Ok(())
 }

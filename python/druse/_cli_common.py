@@ -3,7 +3,8 @@
 from __future__ import annotations
 
 import re
-from collections.abc import Iterator, Sequence
+import sys
+from collections.abc import Callable, Iterator, Sequence
 from contextlib import contextmanager
 
 import click
@@ -72,3 +73,17 @@ def _rows_of(cells: Sequence[int], shape: Sequence[int]) -> list[list[int]]:
         rows.append(list(cells[start : start + length]))
         start += length
     return rows
+
+
+@contextmanager
+def _progress_bar(label: str) -> Iterator[Callable[[int, int], None]]:
+    """A click progress bar on stderr, driven by the library's progress(done, total) calls."""
+    with click.progressbar(length=1, label=label, file=sys.stderr) as bar:
+        seen = [0]
+
+        def update(done: int, total: int) -> None:
+            bar.length = max(total, 1)  # the total is first known from the library's own call
+            bar.update(done - seen[0])
+            seen[0] = done
+
+        yield update

@@ -25,6 +25,7 @@ from druse._cli_common import (
     _parts,
     _rows_of,
 )
+from druse._cli_crystals import lr, lr_table, tensor
 from druse._cli_keys import atom, demazure, expand, key
 from druse.io import check_export_size, write_crystal_json
 
@@ -191,4 +192,8 @@ def tableaux(shape: tuple[int, ...], n: int, limit: int, start: int) -> None:
 
 # Demazure crystals, key polynomials and expansions: commands of their own module.
 for _command in (key, atom, expand, demazure):
+    main.add_command(_command)
+
+# Littlewood-Richardson multiplicities, tensor products, crystals from files.
+for _command in (lr, lr_table, tensor):
     main.add_command(_command)

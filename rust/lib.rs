@@ -10,6 +10,7 @@ pub mod memory;
 pub mod partition;
 pub mod perm;
 pub mod poly;
+pub mod schubert;
 pub mod schur;
 pub mod tableau;
 pub mod tensor;

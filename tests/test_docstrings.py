@@ -14,6 +14,7 @@ MODULES = [
     "druse.io",
     "druse.key",
     "druse.poly",
+    "druse.schubert",
     "druse.schur",
     "druse.tableau_keys",
     "druse.tableaux",

@@ -30,6 +30,7 @@ from druse.key import (
 )
 from druse.lr import LRTable, lr, lr_by_crystal, lr_table
 from druse.poly import Poly
+from druse.schubert import all_schuberts, schubert, schubert_by_divided_differences
 from druse.schur import kostka, schur
 from druse.tableau_keys import (
     left_key,
@@ -55,6 +56,7 @@ __all__ = [
     "TooLargeError",
     "all_demazure_masks",
     "all_permutations",
+    "all_schuberts",
     "atom",
     "atom_expansion",
     "atom_mask",
@@ -87,6 +89,8 @@ __all__ = [
     "right_key_weights",
     "right_keys",
     "save_crystal",
+    "schubert",
+    "schubert_by_divided_differences",
     "schur",
     "schur_expansion",
     "tensor_product",

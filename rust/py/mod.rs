@@ -6,6 +6,7 @@ mod keys;
 mod lr;
 mod poly;
 mod run;
+mod schubert;
 mod schur;
 mod tableau;
 mod tensor;
@@ -21,5 +22,6 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     keys::register(m)?;
     tensor::register(m)?;
     lr::register(m)?;
+    schubert::register(m)?;
     Ok(())
 }

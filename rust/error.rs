@@ -15,6 +15,8 @@ pub enum Error {
     },
     /// A stop was requested (Ctrl-C) while the kernel ran.
     Interrupted,
+    /// A kernel found its own invariant broken: a bug in druse, never the caller's fault.
+    Internal(String),
 }
 
 impl Error {
@@ -37,6 +39,7 @@ impl fmt::Display for Error {
                 human_bytes(*bytes)
             ),
             Error::Interrupted => f.write_str("interrupted"),
+            Error::Internal(m) => write!(f, "druse internal error: {m}; please report it"),
         }
     }
 }

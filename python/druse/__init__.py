@@ -17,6 +17,7 @@ from druse.expansion import (
     Positivity,
     atom_expansion,
     key_expansion,
+    key_expansions,
     positivity,
     schur_expansion,
 )
@@ -75,6 +76,7 @@ __all__ = [
     "iter_tableaux",
     "key",
     "key_expansion",
+    "key_expansions",
     "kostka",
     "left_key",
     "left_key_weights",

@@ -1,4 +1,5 @@
 # Hand-written stub of the Rust extension module druse._core (private: use the public API).
+from collections.abc import Sequence
 from typing import TypeAlias
 
 import numpy as np
@@ -6,6 +7,7 @@ import numpy.typing as npt
 from typing_extensions import Self, final
 
 __all__ = [
+    "ExpansionCache",
     "SchubertBatch",
     "TableauModel",
     "atom_terms",
@@ -14,6 +16,9 @@ __all__ = [
     "demazure_all",
     "demazure_atom",
     "demazure_closure",
+    "exponent_bounds",
+    "key_expansion_batch",
+    "key_expansion_terms",
     "key_terms",
     "kostka_number",
     "lr_batch",
@@ -99,3 +104,17 @@ class SchubertBatch:
     def total(self) -> int: ...
     def advance(self, count: int) -> int: ...
     def collect(self) -> tuple[_Int64, list[int], _Int64]: ...
+
+@final
+class ExpansionCache:
+    # Basis elements ("key" or "atom") shared by batches in nvars variables, exponents <= max.
+    def __new__(cls, kind: str, nvars: int, max_exponent: int) -> Self: ...
+    def __len__(self) -> int: ...
+
+def key_expansion_terms(
+    exps: _Int64, coeffs: Sequence[int], nvars: int, kind: str
+) -> tuple[_Int64, list[int]]: ...
+def key_expansion_batch(
+    cache: ExpansionCache, polys: Sequence[tuple[_Int64, Sequence[int]]]
+) -> tuple[_Int64, list[int], _Int64]: ...
+def exponent_bounds(arrays: Sequence[_Int64]) -> tuple[int, int]: ...

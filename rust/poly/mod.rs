@@ -13,6 +13,7 @@
 
 mod codec;
 mod coeff;
+mod expand;
 mod key;
 mod operators;
 mod product;
@@ -20,6 +21,7 @@ mod product;
 mod tests;
 
 pub use coeff::CoeffVec;
+pub use expand::{expand, Basis, ExpansionCache};
 pub use key::{atom, key};
 pub use product::product;
 

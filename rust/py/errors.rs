@@ -12,6 +12,7 @@ impl From<Error> for PyErr {
             Error::InvalidArgument(_) => PyValueError::new_err(err.to_string()),
             Error::TooLarge { .. } => TooLargeError::new_err(err.to_string()),
             Error::Interrupted => PyKeyboardInterrupt::new_err("interrupted"),
+            Error::Internal(_) => InternalError::new_err(err.to_string()),
         }
     }
 }

@@ -13,6 +13,8 @@ MODULES = [
     "druse.expansion",
     "druse.io",
     "druse.key",
+    "druse.pipe_dreams",
+    "druse._pipe_cells",
     "druse.poly",
     "druse.schubert",
     "druse.schur",

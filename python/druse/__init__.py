@@ -30,6 +30,16 @@ from druse.key import (
     key,
 )
 from druse.lr import LRTable, lr, lr_by_crystal, lr_table
+from druse.pipe_dreams import (
+    PipeDreams,
+    compatible_sequence,
+    count_pipe_dreams,
+    draw_pipe_dream,
+    iter_pipe_dreams,
+    pipe_dream_from_compatible,
+    pipe_dream_of_mask,
+    pipe_dreams,
+)
 from druse.poly import Poly
 from druse.schubert import all_schuberts, schubert, schubert_by_divided_differences
 from druse.schur import kostka, schur
@@ -50,6 +60,7 @@ __all__ = [
     "InternalError",
     "LRTable",
     "LabelledCrystal",
+    "PipeDreams",
     "Poly",
     "Positivity",
     "TableauCrystal",
@@ -62,7 +73,9 @@ __all__ = [
     "atom_expansion",
     "atom_mask",
     "bruhat_le",
+    "compatible_sequence",
     "count_by_enumeration",
+    "count_pipe_dreams",
     "count_tableaux",
     "crystal",
     "crystal_from_edges",
@@ -72,7 +85,9 @@ __all__ = [
     "demazure_mask_of",
     "demazure_product",
     "divided_difference",
+    "draw_pipe_dream",
     "isobaric_divided_difference",
+    "iter_pipe_dreams",
     "iter_tableaux",
     "key",
     "key_expansion",
@@ -85,6 +100,9 @@ __all__ = [
     "lr",
     "lr_by_crystal",
     "lr_table",
+    "pipe_dream_from_compatible",
+    "pipe_dream_of_mask",
+    "pipe_dreams",
     "positivity",
     "reduced_word",
     "right_key",

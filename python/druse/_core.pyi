@@ -8,6 +8,7 @@ from typing_extensions import Self, final
 
 __all__ = [
     "ExpansionCache",
+    "PipeDreamModel",
     "SchubertBatch",
     "TableauModel",
     "atom_terms",
@@ -27,6 +28,8 @@ __all__ = [
     "perm_length",
     "perm_of_word",
     "perm_reduced_word",
+    "pipe_dream_count",
+    "pipe_dream_read",
     "poly_operator",
     "schubert_batch_bytes",
     "schubert_divided_terms",
@@ -118,3 +121,16 @@ def key_expansion_batch(
     cache: ExpansionCache, polys: Sequence[tuple[_Int64, Sequence[int]]]
 ) -> tuple[_Int64, list[int], _Int64]: ...
 def exponent_bounds(arrays: Sequence[_Int64]) -> tuple[int, int]: ...
+
+@final
+class PipeDreamModel:
+    def __new__(cls, perm: list[int]) -> Self: ...
+    def count(self) -> int: ...
+    def words(self) -> int: ...
+    def enumerate(self) -> npt.NDArray[np.uint64]: ...
+    def range(self, start: int, count: int) -> npt.NDArray[np.uint64]: ...
+
+def pipe_dream_read(
+    masks: npt.NDArray[np.uint64], n: int, length: int
+) -> tuple[_Int32, npt.NDArray[np.uint8], npt.NDArray[np.uint8]]: ...
+def pipe_dream_count(perm: list[int]) -> int: ...

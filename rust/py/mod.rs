@@ -4,6 +4,7 @@ mod demazure;
 mod errors;
 mod keys;
 mod lr;
+mod pipes;
 mod poly;
 mod run;
 mod schubert;
@@ -23,5 +24,6 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     tensor::register(m)?;
     lr::register(m)?;
     schubert::register(m)?;
+    pipes::register(m)?;
     Ok(())
 }

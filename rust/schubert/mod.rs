@@ -10,6 +10,9 @@
 #![deny(unsafe_code)]
 
 pub mod batch;
+pub mod pipes;
+pub mod pipes_read;
+pub mod pipes_walk;
 pub mod transition;
 
 pub use batch::{estimated_batch_bytes, AllSchuberts};

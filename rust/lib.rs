@@ -1,6 +1,7 @@
 //! druse's Rust core: kernels for type A crystals. Kernel modules know nothing of Python;
 //! the bindings in `py/` convert and call them.
 
+pub mod axioms;
 pub mod crystal;
 pub mod demazure;
 pub mod error;

@@ -8,6 +8,7 @@ import importlib
 import pytest
 
 MODULES = [
+    "druse.axioms",
     "druse.crystal",
     "druse.demazure",
     "druse.expansion",
@@ -18,6 +19,7 @@ MODULES = [
     "druse.poly",
     "druse.schubert",
     "druse.schur",
+    "druse.structure",
     "druse.tableau_keys",
     "druse.tableaux",
     "druse.user_crystal",

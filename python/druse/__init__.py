@@ -1,5 +1,6 @@
 """druse: type A crystals on tableaux, Demazure characters, Schur and key polynomials, exactly."""
 
+from druse.axioms import AxiomReport, Violation, check_crystal
 from druse.crystal import Crystal, TableauCrystal, crystal
 from druse.demazure import (
     all_demazure_masks,
@@ -43,6 +44,7 @@ from druse.pipe_dreams import (
 from druse.poly import Poly
 from druse.schubert import all_schuberts, schubert, schubert_by_divided_differences
 from druse.schur import kostka, schur
+from druse.structure import Component, decompose, tableau_isomorphism
 from druse.tableau_keys import (
     left_key,
     left_key_weights,
@@ -56,6 +58,8 @@ from druse.tensor import TensorCrystal, tensor_product
 from druse.user_crystal import LabelledCrystal, crystal_from_edges, crystal_from_operators
 
 __all__ = [
+    "AxiomReport",
+    "Component",
     "Crystal",
     "InternalError",
     "LRTable",
@@ -66,6 +70,7 @@ __all__ = [
     "TableauCrystal",
     "TensorCrystal",
     "TooLargeError",
+    "Violation",
     "all_demazure_masks",
     "all_permutations",
     "all_schuberts",
@@ -73,6 +78,7 @@ __all__ = [
     "atom_expansion",
     "atom_mask",
     "bruhat_le",
+    "check_crystal",
     "compatible_sequence",
     "count_by_enumeration",
     "count_pipe_dreams",
@@ -80,6 +86,7 @@ __all__ = [
     "crystal",
     "crystal_from_edges",
     "crystal_from_operators",
+    "decompose",
     "demazure_atom_operator",
     "demazure_mask",
     "demazure_mask_of",
@@ -113,6 +120,7 @@ __all__ = [
     "schubert_by_divided_differences",
     "schur",
     "schur_expansion",
+    "tableau_isomorphism",
     "tensor_product",
     "word_permutation",
 ]

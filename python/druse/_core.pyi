@@ -13,6 +13,7 @@ __all__ = [
     "TableauModel",
     "atom_terms",
     "character",
+    "check_axioms",
     "components",
     "demazure_all",
     "demazure_atom",
@@ -24,6 +25,7 @@ __all__ = [
     "kostka_number",
     "lr_batch",
     "lr_terms",
+    "model_map",
     "perm_bruhat_le",
     "perm_length",
     "perm_of_word",
@@ -134,3 +136,21 @@ def pipe_dream_read(
     masks: npt.NDArray[np.uint64], n: int, length: int
 ) -> tuple[_Int32, npt.NDArray[np.uint8], npt.NDArray[np.uint8]]: ...
 def pipe_dream_count(perm: list[int]) -> int: ...
+def check_axioms(
+    n: int,
+    count: int,
+    lowering: list[_Int64],
+    raising: list[_Int64],
+    weights: _Int32 | None,
+    declared: tuple[list[_Int32], list[_Int32]] | None,
+    stembridge: bool,
+    max_witnesses: int,
+) -> tuple[list[tuple[str, int]], list[tuple[str, int, int, list[int], str]]]: ...
+def model_map(
+    n: int,
+    source: tuple[list[_Int64], list[_Int64], _Int32],
+    top: int,
+    model: tuple[list[_Int64], list[_Int64], _Int32],
+    model_top: int,
+    shift: int,
+) -> tuple[_Int64 | None, tuple[int, int, str] | None]: ...

@@ -1,4 +1,5 @@
 //! PyO3 bindings: conversions only, one file per kernel module.
+mod axioms;
 mod crystal;
 mod demazure;
 mod errors;
@@ -25,5 +26,6 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     lr::register(m)?;
     schubert::register(m)?;
     pipes::register(m)?;
+    axioms::register(m)?;
     Ok(())
 }

@@ -24,6 +24,11 @@ demo: $(VENV)/bin/python ## fresh machine: build and install into .venv (release
 	$(VENV)/bin/druse crystal 4,2,2,1 6
 	$(VENV)/bin/druse schur 2,2,1 4
 	$(VENV)/bin/druse tableaux 3,2 4 --limit 5
+	$(VENV)/bin/python examples/schubert_and_checks.py
+	$(VENV)/bin/druse schubert 1,4,3,2
+	$(VENV)/bin/druse pipe-dreams 2,5,1,4,3 --limit 1
+	$(VENV)/bin/druse schubert-keys 2,5,1,4,3
+	$(VENV)/bin/druse lr 3,2,1 2,1
 
 check: $(VENV)/bin/python ## fresh machine: install with test and lint extras into .venv, run all tests
 	$(VENV)/bin/python -m pip install ".[test,lint]"

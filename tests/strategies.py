@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import random
 from typing import Any
 
 from hypothesis import strategies as st
@@ -80,3 +81,17 @@ def polys(draw: st.DrawFn, nvars: int, max_terms: int = 5) -> Poly:
     exps = st.tuples(*[st.integers(-2, 3)] * nvars)
     coeffs = st.one_of(st.integers(-3, 3), st.integers(-(2**80), 2**80))
     return Poly.from_dict(draw(st.dictionaries(exps, coeffs, max_size=max_terms)), nvars)
+
+
+Perm = tuple[int, ...]
+
+
+def random_perms(n: int, count: int, seed: int) -> list[Perm]:
+    """`count` permutations of 1..n, drawn reproducibly from `seed`."""
+    rng = random.Random(seed)
+    out = []
+    for _ in range(count):
+        w = list(range(1, n + 1))
+        rng.shuffle(w)
+        out.append(tuple(w))
+    return out

@@ -3,8 +3,10 @@
 from __future__ import annotations
 
 import json
+from pathlib import Path
+from typing import Any
 
-from clirun import ok, refused
+from clirun import ok, refused, run
 
 
 def test_lr_prints_the_published_example() -> None:
@@ -60,3 +62,56 @@ def test_tensor_text() -> None:
 def test_bad_input_is_refused() -> None:
     assert "mu" in refused("lr", "1,2", "1")
     assert "Error" in refused("tensor", "1", "-n", "0", code=2)
+
+
+def _saved(tmp_path: Path, name: str, doc: dict[str, Any]) -> str:
+    path = tmp_path / name
+    path.write_text(json.dumps(doc), encoding="utf-8")
+    return str(path)
+
+
+def test_check_and_decompose_a_saved_tableau_crystal(tmp_path: Path) -> None:
+    # B(2,1) of GL_3 has 8 vertices (hook-content) and satisfies every axiom (Stembridge 2003)
+    path = str(tmp_path / "b21.json")
+    ok("crystal", "2,1", "3", "--output", path)
+    assert "every axiom holds" in ok("check", path)
+    out = ok("decompose", path)
+    assert "isomorphic to B(2,1)" in out
+    graphml = str(tmp_path / "b21.graphml")
+    ok("convert", path, graphml)
+    assert json.loads(ok("check", graphml, "--json"))["ok"] is True
+
+
+def test_check_reports_a_wrong_weight_with_exit_status_1(tmp_path: Path) -> None:
+    path = str(tmp_path / "b21.json")
+    ok("crystal", "2,1", "3", "--output", path)
+    doc = json.loads(Path(path).read_text(encoding="utf-8"))
+    doc["vertices"][3]["weight"][0] += 1  # one weight wrong: wt(f_i x) = wt(x) - alpha_i breaks
+    broken = _saved(tmp_path, "broken.json", doc)
+    result = run("check", broken, "--json")
+    assert result.exit_code == 1
+    report = json.loads(result.stdout)
+    assert report["ok"] is False
+    assert report["counts"]["weight"] > 0
+    assert any(3 in v["vertices"] for v in report["violations"] if v["axiom"] == "weight")
+
+
+def test_malformed_file_names_the_line(tmp_path: Path) -> None:
+    bad = tmp_path / "bad.json"
+    bad.write_text('{"format": "druse.crystal",\n', encoding="utf-8")
+    assert "line 2" in refused("check", str(bad))
+
+
+def test_recognise_a_demazure_mask_and_a_broken_one(tmp_path: Path) -> None:
+    path = str(tmp_path / "b21.json")
+    ok("crystal", "2,1", "3", "--output", path)
+    # B_{s_1}(2,1) = {u, f_1 u}: its character is key(1,2,0) (Demazure character formula,
+    # Kashiwara 1993); the file keeps druse's vertex order, where f_1 of vertex 0 is vertex 1
+    doc = json.loads(ok("recognise", path, "--vertices", "0,1", "--json"))
+    assert doc["pieces"][0]["key"] == [1, 2, 0]
+    assert doc["key_expansion"] == [[[1, 2, 0], 1]]
+    subset = tmp_path / "subset.json"
+    subset.write_text("[0, 1, 2, 5]", encoding="utf-8")
+    out = ok("recognise", path, "--vertices", f"@{subset}")
+    assert "not Demazure" in out
+    assert "Error" in refused("recognise", path, "--vertices", "0,99")

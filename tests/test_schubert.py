@@ -10,7 +10,6 @@ import doctest
 import importlib
 import itertools
 import math
-import random
 
 import numpy as np
 import pytest
@@ -25,6 +24,7 @@ from druse import (
     schur,
 )
 from reference import schubert as ref
+from strategies import random_perms
 
 Perm = tuple[int, ...]
 
@@ -35,16 +35,6 @@ def terms(p: Poly) -> dict[tuple[int, ...], int]:
 
 def value_at_ones(p: Poly) -> int:
     return sum(terms(p).values())
-
-
-def random_perms(n: int, count: int, seed: int) -> list[Perm]:
-    rng = random.Random(seed)
-    out = []
-    for _ in range(count):
-        w = list(range(1, n + 1))
-        rng.shuffle(w)
-        out.append(tuple(w))
-    return out
 
 
 S5 = list(itertools.permutations(range(1, 6)))

@@ -31,6 +31,12 @@ from druse.key import (
     key,
 )
 from druse.lr import LRTable, lr, lr_by_crystal, lr_table
+from druse.pipe_crystal import (
+    FactorizationCrystal,
+    PipeDreamCrystal,
+    factorization_crystal,
+    pipe_dream_crystal,
+)
 from druse.pipe_dreams import (
     PipeDreams,
     compatible_sequence,
@@ -42,7 +48,18 @@ from druse.pipe_dreams import (
     pipe_dreams,
 )
 from druse.poly import Poly
+from druse.recognition import (
+    DemazurePiece,
+    DemazureRecognition,
+    DemazureWitness,
+    demazure_recognition,
+)
 from druse.schubert import all_schuberts, schubert, schubert_by_divided_differences
+from druse.schubert_keys import (
+    all_schubert_key_expansions,
+    schubert_key_expansion,
+    stanley_schur_expansion,
+)
 from druse.schur import kostka, schur
 from druse.structure import Component, decompose, tableau_isomorphism
 from druse.tableau_keys import (
@@ -61,9 +78,14 @@ __all__ = [
     "AxiomReport",
     "Component",
     "Crystal",
+    "DemazurePiece",
+    "DemazureRecognition",
+    "DemazureWitness",
+    "FactorizationCrystal",
     "InternalError",
     "LRTable",
     "LabelledCrystal",
+    "PipeDreamCrystal",
     "PipeDreams",
     "Poly",
     "Positivity",
@@ -73,6 +95,7 @@ __all__ = [
     "Violation",
     "all_demazure_masks",
     "all_permutations",
+    "all_schubert_key_expansions",
     "all_schuberts",
     "atom",
     "atom_expansion",
@@ -91,8 +114,10 @@ __all__ = [
     "demazure_mask",
     "demazure_mask_of",
     "demazure_product",
+    "demazure_recognition",
     "divided_difference",
     "draw_pipe_dream",
+    "factorization_crystal",
     "isobaric_divided_difference",
     "iter_pipe_dreams",
     "iter_tableaux",
@@ -107,6 +132,7 @@ __all__ = [
     "lr",
     "lr_by_crystal",
     "lr_table",
+    "pipe_dream_crystal",
     "pipe_dream_from_compatible",
     "pipe_dream_of_mask",
     "pipe_dreams",
@@ -118,8 +144,10 @@ __all__ = [
     "save_crystal",
     "schubert",
     "schubert_by_divided_differences",
+    "schubert_key_expansion",
     "schur",
     "schur_expansion",
+    "stanley_schur_expansion",
     "tableau_isomorphism",
     "tensor_product",
     "word_permutation",

@@ -7,6 +7,7 @@ import json
 from collections.abc import Sequence
 
 import click
+import numpy as np
 
 import druse
 from druse._cli_common import LETTERS, _format_parts, _library_errors, _parts, _progress_bar
@@ -120,3 +121,189 @@ def tensor(shapes: list[tuple[int, ...]], n: int, as_json: bool) -> None:
     names = " x ".join(f"B{_format_parts(s)}" for s in shapes)
     click.echo(f"{names} of GL_{n}: {len(product)} vertices, {sum(parts.values())} components")
     _echo_multiplicities(parts, "B")
+
+
+_FORMATS = click.Choice(("json", "graphml"))
+
+
+def _load(path: str, fmt: str | None) -> druse.Crystal:
+    """A crystal file, weights left unchecked so that the axiom check can judge them."""
+    with _library_errors():
+        try:
+            return druse.load_crystal(path, fmt, check_weights=False)
+        except OSError as err:
+            raise click.ClickException(f"cannot read {path}: {err.strerror or err}") from err
+
+
+@click.command()
+@click.argument("path", type=click.Path(dir_okay=False))
+@click.option("--format", "fmt", type=_FORMATS, help="File format (default: from the suffix).")
+@click.option("--no-stembridge", is_flag=True, help="Check the basic axioms only.")
+@click.option(
+    "--max-witnesses",
+    type=click.IntRange(min=0),
+    default=20,
+    show_default=True,
+    help="Report at most this many violations (the counts are always complete).",
+)
+@click.option("--json", "as_json", is_flag=True, help="Print the report as JSON.")
+def check(
+    path: str, fmt: str | None, no_stembridge: bool, max_witnesses: int, as_json: bool
+) -> None:
+    """Check that the crystal in PATH (JSON or GraphML) satisfies the crystal axioms of type A.
+
+    The basic axioms (partial inverses, weights, string lengths) and Stembridge's local axioms
+    (Stembridge, "A local characterization of simply-laced crystals", 2003); each violation is
+    reported with its vertices. The exit status is 1 when an axiom fails.
+    """
+    c = _load(path, fmt)
+    with _library_errors():
+        report = druse.check_crystal(c, stembridge=not no_stembridge, max_witnesses=max_witnesses)
+    if as_json:
+        _echo_json({"path": path, "n": c.n, "vertices": len(c), **report.to_dict()})
+    else:
+        click.echo(f"{path}: crystal of GL_{c.n} with {len(c)} vertices")
+        click.echo(str(report))
+    if not report.ok:
+        raise SystemExit(1)
+
+
+@click.command()
+@click.argument("path", type=click.Path(dir_okay=False))
+@click.option("--format", "fmt", type=_FORMATS, help="File format (default: from the suffix).")
+@click.option("--json", "as_json", is_flag=True, help="Print the components as JSON.")
+def decompose(path: str, fmt: str | None, as_json: bool) -> None:
+    """Split the crystal in PATH into components, each matched with B(lambda) on tableaux.
+
+    For each component: its highest weight vertex and weight, and whether an explicit
+    isomorphism to the tableau crystal B(lambda) exists (a witness says why not).
+    """
+    c = _load(path, fmt)
+    rows = []
+    with _library_errors():
+        for k, part in enumerate(druse.decompose(c)):
+            try:
+                shape, _ = druse.tableau_isomorphism(c, k)
+                match, why = _trimmed(shape), None
+            except ValueError as err:
+                match, why = None, str(err)
+            rows.append((part, match, why))
+    if as_json:
+        _echo_json(
+            {
+                "path": path,
+                "n": c.n,
+                "vertices": len(c),
+                "components": [
+                    {
+                        "highest_weight": p.highest_weight,
+                        "weight": list(p.weight),
+                        "size": p.size,
+                        "shape": None if m is None else list(m),
+                        "witness": why,
+                    }
+                    for p, m, why in rows
+                ],
+            }
+        )
+        return
+    click.echo(f"{path}: crystal of GL_{c.n} with {len(c)} vertices, {len(rows)} components")
+    for p, m, why in rows:
+        head = f"  vertex {p.highest_weight}: weight {_format_parts(p.weight)}, {p.size} vertices"
+        click.echo(f"{head}, isomorphic to B{_format_parts(m)}" if m is not None else head)
+        if why is not None:
+            click.echo(f"    not a B(lambda): {why}")
+
+
+@click.command()
+@click.argument("source", type=click.Path(dir_okay=False))
+@click.argument("target", type=click.Path(dir_okay=False))
+def convert(source: str, target: str) -> None:
+    """Read a crystal file and write it in the format of TARGET's suffix (.json or .graphml)."""
+    c = _load(source, None)
+    with _library_errors():
+        try:
+            druse.save_crystal(c, target)
+        except OSError as err:
+            raise click.ClickException(f"cannot write {target}: {err.strerror or err}") from err
+    click.echo(f"wrote {len(c)} vertices to {target}")
+
+
+def _subset(text: str, size: int) -> list[int]:
+    """Vertex indices from '0,3,5' or from a file holding a JSON array of them ('@path')."""
+    if text.startswith("@"):
+        path = text[1:]
+        try:
+            with open(path, encoding="utf-8") as handle:
+                doc = json.load(handle)
+        except OSError as err:
+            raise click.ClickException(f"cannot read {path}: {err.strerror or err}") from err
+        except json.JSONDecodeError as err:
+            raise click.ClickException(f"{path}: line {err.lineno}: not valid JSON") from err
+        if not isinstance(doc, list) or not all(type(v) is int for v in doc):
+            raise click.ClickException(f"{path} must hold a JSON array of vertex indices")
+        vertices = list(doc)
+    else:
+        pieces = [x.strip() for x in text.strip().strip("()[]").split(",") if x.strip()]
+        if not all(x.isdigit() for x in pieces):
+            raise click.BadParameter(f"{text!r} is not a list of vertex indices like 0,3,5")
+        vertices = [int(x) for x in pieces]
+    bad = [v for v in vertices if not 0 <= v < size]
+    if bad:
+        raise click.ClickException(f"--vertices must be in 0..{size - 1}; got {bad[0]}")
+    return vertices
+
+
+@click.command()
+@click.argument("path", type=click.Path(dir_okay=False))
+@click.option(
+    "--vertices",
+    "-v",
+    "subset",
+    required=True,
+    help="The subset: vertex indices 0,3,5 or @FILE with a JSON array of them.",
+)
+@click.option("--format", "fmt", type=_FORMATS, help="File format (default: from the suffix).")
+@click.option("--json", "as_json", is_flag=True, help="Print the pieces as JSON.")
+def recognise(path: str, subset: str, fmt: str | None, as_json: bool) -> None:
+    """Decide, component by component, whether a vertex subset of the crystal in PATH is a
+    Demazure crystal B_w(lambda); print w and its key w.lambda, or a witness why not."""
+    c = _load(path, fmt)
+    mask = np.zeros(len(c), dtype=np.bool_)
+    mask[_subset(subset, len(c))] = True
+    with _library_errors():
+        found = druse.demazure_recognition(c, mask)
+        expansion = found.key_expansion()
+    if as_json:
+        terms = None if expansion is None else [[list(a), k] for a, k in expansion.items()]
+        _echo_json({"path": path, "pieces": [_piece_doc(p) for p in found], "key_expansion": terms})
+        return
+    click.echo(f"{path}: {int(mask.sum())} of {len(c)} vertices, {len(found)} components met")
+    for p in found:
+        click.echo(f"  component of vertex {p.highest_weight} (weight {_format_parts(p.weight)}):")
+        if p.perm is not None and p.key is not None:
+            click.echo(f"    B_w with w = {_format_parts(p.perm)}, key{_format_parts(p.key)}")
+        elif p.witness is not None:
+            w = p.witness
+            click.echo(
+                f"    not Demazure: {w.kind} at vertex {w.vertex} (other {w.other}, i {w.i})"
+            )
+    if expansion is not None:
+        terms_text = " + ".join(f"{k}*key{_format_parts(a)}" for a, k in expansion.items())
+        click.echo(f"character: {terms_text}")
+
+
+def _piece_doc(p: druse.DemazurePiece) -> dict[str, object]:
+    w = p.witness
+    return {
+        "highest_weight": p.highest_weight,
+        "weight": list(p.weight),
+        "size": p.size,
+        "demazure": p.is_demazure,
+        "perm": None if p.perm is None else list(p.perm),
+        "word": None if p.word is None else list(p.word),
+        "key": None if p.key is None else list(p.key),
+        "witness": None
+        if w is None
+        else {"kind": w.kind, "vertex": w.vertex, "other": w.other, "i": w.i},
+    }

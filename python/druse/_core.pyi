@@ -19,6 +19,7 @@ __all__ = [
     "demazure_atom",
     "demazure_closure",
     "exponent_bounds",
+    "factorization_crystal",
     "key_expansion_batch",
     "key_expansion_terms",
     "key_terms",
@@ -31,6 +32,8 @@ __all__ = [
     "perm_of_word",
     "perm_reduced_word",
     "pipe_dream_count",
+    "pipe_dream_keys",
+    "pipe_dream_keys_batch",
     "pipe_dream_read",
     "poly_operator",
     "schubert_batch_bytes",
@@ -154,3 +157,10 @@ def model_map(
     model_top: int,
     shift: int,
 ) -> tuple[_Int64 | None, tuple[int, int, str] | None]: ...
+def factorization_crystal(
+    perm: list[int], factors: int, bounded_only: bool, limit: int
+) -> tuple[npt.NDArray[np.uint32], list[_Int64], list[_Int64], _Int32, npt.NDArray[np.bool_]]: ...
+def pipe_dream_keys(perm: list[int], limit: int) -> list[tuple[list[int], int]]: ...
+def pipe_dream_keys_batch(
+    n: int, start: int, count: int, limit: int
+) -> list[list[tuple[list[int], int]]]: ...

@@ -25,8 +25,9 @@ from druse._cli_common import (
     _parts,
     _rows_of,
 )
-from druse._cli_crystals import lr, lr_table, tensor
+from druse._cli_crystals import check, convert, decompose, lr, lr_table, recognise, tensor
 from druse._cli_keys import atom, demazure, expand, key
+from druse._cli_schubert import pipe_dreams, schubert, schubert_all, schubert_keys, stanley
 from druse.io import check_export_size, write_crystal_json
 
 
@@ -195,5 +196,9 @@ for _command in (key, atom, expand, demazure):
     main.add_command(_command)
 
 # Littlewood-Richardson multiplicities, tensor products, crystals from files.
-for _command in (lr, lr_table, tensor):
+for _command in (lr, lr_table, tensor, check, decompose, recognise, convert):
+    main.add_command(_command)
+
+# Schubert polynomials, pipe dreams and their key expansions.
+for _command in (schubert, pipe_dreams, schubert_keys, stanley, schubert_all):
     main.add_command(_command)

@@ -3,6 +3,7 @@ mod axioms;
 mod crystal;
 mod demazure;
 mod errors;
+mod factorization;
 mod keys;
 mod lr;
 mod pipes;
@@ -27,5 +28,6 @@ pub fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     schubert::register(m)?;
     pipes::register(m)?;
     axioms::register(m)?;
+    factorization::register(m)?;
     Ok(())
 }

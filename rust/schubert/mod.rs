@@ -10,6 +10,7 @@
 #![deny(unsafe_code)]
 
 pub mod batch;
+pub mod factorization;
 pub mod pipes;
 pub mod pipes_read;
 pub mod pipes_walk;

@@ -1,0 +1,172 @@
+//! Enumeration of the decreasing factorizations: a depth-first search over left descents.
+#![deny(unsafe_code)]
+
+use crate::error::Error;
+use crate::job::Job;
+use std::collections::HashMap;
+
+/// Depth-first search state: the inverse of the part of w not yet written, and the factors so far.
+struct Search<'a> {
+    n: usize,
+    m: usize,
+    inverse: Vec<usize>,
+    row: Vec<u32>,
+    out: Vec<u32>,
+    limit: usize,
+    job: &'a Job,
+    finishes: Finishes,
+    /// Some(m) when only bounded factorizations are wanted.
+    floor: Option<usize>,
+}
+
+/// Memo of `can_finish`, keyed by the packed inverse of the rest, the bound and the factors left.
+type Finishes = HashMap<([u64; 3], usize, usize), bool>;
+
+/// The inverse permutation packed 5 bits an entry (n <= 32).
+fn packed(inverse: &[usize]) -> [u64; 3] {
+    let mut out = [0u64; 3];
+    for (j, &x) in inverse.iter().enumerate() {
+        let bit = 5 * j;
+        let x = u128::try_from(x).expect("small") << (bit % 64);
+        out[bit / 64] |= u64::try_from(x & u128::from(u64::MAX)).expect("masked");
+        if bit % 64 > 59 {
+            out[bit / 64 + 1] |= u64::try_from(x >> 64).expect("a few bits");
+        }
+    }
+    out
+}
+
+/// Whether the rest (given by its inverse, `left` = its length) can be written as the current
+/// factor continued with letters below `below` followed by k - 1 more decreasing factors.
+/// Memoised, so the enumeration never enters a branch without a leaf.
+fn can_finish(
+    memo: &mut Finishes,
+    inverse: &mut [usize],
+    (below, k, floor): (usize, usize, Option<usize>),
+    left: usize,
+) -> bool {
+    let n = inverse.len();
+    if left == 0 {
+        return true;
+    }
+    if k == 0 || left > below - 1 + (k - 1) * (n - 1) {
+        return false;
+    }
+    if let Some(m) = floor {
+        // bounded: u^j holds at most n - j letters; the search is small, a memo costs more
+        let room: usize = (m + 2 - k..=m).map(|j| n.saturating_sub(j)).sum();
+        if left > (below - 1).min(n.saturating_sub(m + 1 - k)) + room {
+            return false;
+        }
+        return true;
+    }
+    let key = (packed(inverse), below, k);
+    if let Some(&known) = memo.get(&key) {
+        return known;
+    }
+    let mut ok = k > 1 && can_finish(memo, inverse, (n, k - 1, floor), left);
+    // bounded: the factor with k left is u^(m-k+1), whose letters are at least m - k + 1
+    let lowest = floor.map_or(1, |m| m + 1 - k);
+    for a in lowest..below {
+        if ok {
+            break;
+        }
+        if inverse[a - 1] > inverse[a] {
+            inverse.swap(a - 1, a);
+            ok = can_finish(memo, inverse, (a, k, floor), left - 1);
+            inverse.swap(a - 1, a);
+        }
+    }
+    memo.insert(key, ok);
+    ok
+}
+
+/// All decreasing factorizations of w into m >= 1 factors, sorted (row-major, m bitsets per row).
+/// With `bounded_only`, only the bounded ones (letters of u^r at least r): the pipe dreams.
+pub fn enumerate(
+    w: &[usize],
+    (m, bounded_only): (usize, bool),
+    limit: usize,
+    job: &Job,
+) -> Result<Vec<u32>, Error> {
+    let n = w.len();
+    if n == 0 {
+        return Ok(Vec::new());
+    }
+    let mut inverse = vec![0; n];
+    for (position, &value) in w.iter().enumerate() {
+        inverse[value] = position;
+    }
+    let length = crate::perm::length(w);
+    let mut search = Search {
+        n,
+        m,
+        inverse,
+        row: vec![0; m],
+        out: Vec::new(),
+        limit,
+        job,
+        finishes: HashMap::new(),
+        floor: bounded_only.then_some(m),
+    };
+    search.grow(0, n, length)?;
+    Ok(sorted_rows(&search.out, m))
+}
+
+impl Search<'_> {
+    /// Extends factor r (0-based) with letters below `below`, `left` letters still to write.
+    fn grow(&mut self, r: usize, below: usize, left: usize) -> Result<(), Error> {
+        if !can_finish(
+            &mut self.finishes,
+            &mut self.inverse,
+            (below, self.m - r, self.floor),
+            left,
+        ) {
+            return Ok(());
+        }
+        if r + 1 == self.m {
+            if left == 0 {
+                self.emit()?;
+            }
+        } else {
+            self.grow(r + 1, self.n, left)?;
+        }
+        for a in self.floor.map_or(1, |_| r + 1)..below {
+            // letter a is a left descent of the rest iff value a+1 stands left of value a
+            // (1-based values; `inverse` is 0-based): l(s_a rest) < l(rest)
+            if left > 0 && self.inverse[a - 1] > self.inverse[a] {
+                self.inverse.swap(a - 1, a);
+                self.row[r] |= 1 << (a - 1);
+                let result = self.grow(r, a, left - 1);
+                self.row[r] &= !(1 << (a - 1));
+                self.inverse.swap(a - 1, a);
+                result?;
+            }
+        }
+        Ok(())
+    }
+
+    fn emit(&mut self) -> Result<(), Error> {
+        let count = self.out.len() / self.m;
+        if count >= self.limit {
+            return Err(Error::TooLarge {
+                what: format!("more than {} decreasing factorizations", self.limit),
+                bytes: u128::try_from(count * self.m * 40).unwrap_or(u128::MAX),
+                instead: "use druse.pipe_dreams, or druse.schubert_key_expansion with \
+                          method=\"polynomial\""
+                    .to_string(),
+            });
+        }
+        if count % 4096 == 0 {
+            self.job.checkpoint(4096)?;
+        }
+        self.out.extend_from_slice(&self.row);
+        Ok(())
+    }
+}
+
+fn sorted_rows(flat: &[u32], n: usize) -> Vec<u32> {
+    let mut rows: Vec<&[u32]> = flat.chunks_exact(n).collect();
+    rows.sort_unstable();
+    rows.concat()
+}

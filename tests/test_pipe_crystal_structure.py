@@ -44,3 +44,13 @@ def test_pipe_dreams_are_demazure_in_each_component(w: tuple[int, ...]) -> None:
             {(0,) * len(w): coefficient}, len(w)
         )
     assert total == druse.schubert(w)
+
+
+def test_all_of_s7_two_routes_agree() -> None:
+    # the Demazure pieces of the pipe-dream crystal (Assaf-Schilling 2018) against peeling the
+    # Schubert polynomials computed by divided differences from S_w0 (Macdonald 1991, (4.1))
+    polys = druse.all_schuberts(7)
+    by_peeling = druse.key_expansions(list(polys.values()))
+    assert druse.all_schubert_key_expansions(7) == by_peeling
+    # every coefficient is positive (Lascoux-Schutzenberger; Reiner-Shimozono 1995)
+    assert all(c > 0 for e in by_peeling for c in e.values())

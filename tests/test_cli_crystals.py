@@ -115,3 +115,10 @@ def test_recognise_a_demazure_mask_and_a_broken_one(tmp_path: Path) -> None:
     out = ok("recognise", path, "--vertices", f"@{subset}")
     assert "not Demazure" in out
     assert "Error" in refused("recognise", path, "--vertices", "0,99")
+
+
+def test_crystal_output_graphml_by_suffix(tmp_path: Path) -> None:
+    path = str(tmp_path / "b31.graphml")
+    ok("crystal", "3,1", "3", "--output", path)
+    # B(3,1) of GL_3 has 15 vertices (hook-content formula)
+    assert json.loads(ok("check", path, "--json"))["vertices"] == 15

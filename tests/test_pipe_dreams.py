@@ -243,3 +243,11 @@ def test_bad_crosses() -> None:
         druse.draw_pipe_dream([(1, 1, 1)], 3)
     with pytest.raises(ValueError, match="style"):
         druse.draw_pipe_dream([], 3, style="fancy")
+
+
+def test_huge_state_graph_is_refused_quickly() -> None:
+    # w = 1 30 29 ... 2 has C_29 (about 1.3e15) pipe dreams (Woo 2004; OEIS A000108): the state
+    # graph outgrows its cap inside the first row, and the refusal comes before memory runs out
+    w = (1, *range(30, 1, -1))
+    with pytest.raises(druse.TooLargeError, match="state graph"):
+        druse.count_pipe_dreams(w)

@@ -83,7 +83,7 @@ def schur(shape: tuple[int, ...], n: int, as_json: bool) -> None:
     "--output",
     "-o",
     type=click.Path(dir_okay=False, writable=True, allow_dash=True),
-    help="Write the JSON export to this file ('-' for standard output).",
+    help="Write the export to this file: GraphML if it ends in .graphml, else JSON ('-': stdout).",
 )
 def crystal(shape: tuple[int, ...], n: int, as_json: bool, output: str | None) -> None:
     """Summarise the crystal B(SHAPE) of GL_N, or export it as JSON (--json, --output).
@@ -105,7 +105,10 @@ def _export_crystal(shape: tuple[int, ...], n: int, output: str | None) -> None:
             write_crystal_json(c, sys.stdout)
             return
         try:
-            write_crystal_json(c, output)
+            if output.lower().endswith(".graphml"):
+                druse.save_crystal(c, output)  # GraphML, the open standard
+            else:
+                write_crystal_json(c, output)
         except OSError as err:
             raise click.ClickException(f"cannot write {output}: {err.strerror or err}") from err
         edges = sum(int(np.count_nonzero(c.f(i) >= 0)) for i in range(1, n))

@@ -3,6 +3,8 @@
 
 use crate::error::Error;
 use crate::job::Job;
+use crate::schubert::pipes::{mask_words, row_offsets, PipeDreamGraph};
+use crate::schubert::pipes_read;
 use std::collections::HashMap;
 
 /// Depth-first search state: the inverse of the part of w not yet written, and the factors so far.
@@ -93,6 +95,9 @@ pub fn enumerate(
     if n == 0 {
         return Ok(Vec::new());
     }
+    if bounded_only && m + 1 >= n {
+        return bounded_from_pipe_dreams(w, m, limit, job);
+    }
     let mut inverse = vec![0; n];
     for (position, &value) in w.iter().enumerate() {
         inverse[value] = position;
@@ -149,13 +154,7 @@ impl Search<'_> {
     fn emit(&mut self) -> Result<(), Error> {
         let count = self.out.len() / self.m;
         if count >= self.limit {
-            return Err(Error::TooLarge {
-                what: format!("more than {} decreasing factorizations", self.limit),
-                bytes: u128::try_from(count * self.m * 40).unwrap_or(u128::MAX),
-                instead: "use druse.pipe_dreams, or druse.schubert_key_expansion with \
-                          method=\"polynomial\""
-                    .to_string(),
-            });
+            return Err(too_many(self.limit, count, self.m));
         }
         if count % 4096 == 0 {
             self.job.checkpoint(4096)?;
@@ -169,4 +168,51 @@ fn sorted_rows(flat: &[u32], n: usize) -> Vec<u32> {
     let mut rows: Vec<&[u32]> = flat.chunks_exact(n).collect();
     rows.sort_unstable();
     rows.concat()
+}
+
+fn too_many(limit: usize, count: usize, m: usize) -> Error {
+    Error::TooLarge {
+        what: format!("more than {limit} decreasing factorizations"),
+        bytes: u128::try_from(count.saturating_mul(m * 40)).unwrap_or(u128::MAX),
+        instead: "use druse.pipe_dreams, or druse.schubert_key_expansion with \
+                  method=\"polynomial\""
+            .to_string(),
+    }
+}
+
+/// The bounded factorizations into m >= n - 1 factors, straight from the pipe-dream enumeration
+/// (which has no dead ends, unlike a search with the bounded length test): row r of a pipe dream
+/// is the factor u^(r+1), its field bit c standing for the 0-based letter r + c. Ascending masks
+/// compare row 1 first, so the rows come out sorted as `sorted_rows` would sort them.
+fn bounded_from_pipe_dreams(
+    w: &[usize],
+    m: usize,
+    limit: usize,
+    job: &Job,
+) -> Result<Vec<u32>, Error> {
+    let n = w.len();
+    let graph = PipeDreamGraph::new(w, job)?;
+    let total = pipes_read::checked_total(&graph)?;
+    if total > limit {
+        return Err(too_many(limit, total, m));
+    }
+    let masks = pipes_read::enumerate(&graph, job)?;
+    let words = mask_words(n);
+    let offsets = row_offsets(n);
+    let mut out = vec![0u32; total * m];
+    if words == 0 {
+        return Ok(out);
+    }
+    for (mask, rows) in masks.chunks_exact(words).zip(out.chunks_exact_mut(m)) {
+        for (r, &off) in offsets.iter().enumerate() {
+            for c in 0..n - 1 - r {
+                let bit = off as usize + c;
+                if mask[words - 1 - bit / 64] >> (bit % 64) & 1 == 1 {
+                    rows[r] |= 1 << (r + c);
+                }
+            }
+        }
+    }
+    job.checkpoint(total as u64)?;
+    Ok(out)
 }

@@ -70,8 +70,9 @@ pub fn mask_words(n: usize) -> usize {
 /// decreasing order. So the value r reaches position r exactly when the letters p-1, ..., r
 /// are all taken (each a descent, as everything right of the value r is larger) and p is not;
 /// the letters above p touch only positions past p and are free, subject to being descents.
-/// Every choice found is valid, so the search costs in proportion to what it returns.
-fn row_choices(inv: &[u8], r: usize) -> Vec<(u64, Vec<u8>)> {
+/// Every choice found is valid, so the search costs in proportion to what it returns; it stops
+/// (None) past `budget` choices, since one state of a large w can have 2^(n-r) of them.
+fn row_choices(inv: &[u8], r: usize, budget: usize) -> Option<Vec<(u64, Vec<u8>)>> {
     let n = inv.len();
     let p = inv
         .iter()
@@ -81,12 +82,15 @@ fn row_choices(inv: &[u8], r: usize) -> Vec<(u64, Vec<u8>)> {
     u[r..=p].rotate_right(1); // the letters p-1, ..., r, applied after the free ones
     let forced = (1u64 << (p - r)) - 1;
     let mut out = Vec::new();
-    free_letters(&mut u, r, p + 1, n - 1, forced, &mut out);
+    if !free_letters(&mut u, r, p + 1, n - 1, forced, &mut out, budget) {
+        return None;
+    }
     out.sort_unstable_by_key(|(field, _)| *field);
-    out
+    Some(out)
 }
 
 /// Letters a = top-1 down to lo: take s_a when it is a left descent of v (u[a] > u[a+1]).
+/// False once `out` would exceed `budget` entries.
 fn free_letters(
     u: &mut Vec<u8>,
     r: usize,
@@ -94,17 +98,34 @@ fn free_letters(
     top: usize,
     field: u64,
     out: &mut Vec<(u64, Vec<u8>)>,
-) {
+    budget: usize,
+) -> bool {
     if top <= lo {
         out.push((field, u.clone()));
-        return;
+        return out.len() <= budget;
     }
     let a = top - 1;
-    free_letters(u, r, lo, a, field, out);
+    if !free_letters(u, r, lo, a, field, out, budget) {
+        return false;
+    }
     if u[a] > u[a + 1] {
         u.swap(a, a + 1);
-        free_letters(u, r, lo, a, field | (1 << (a - r)), out);
+        let fits = free_letters(u, r, lo, a, field | (1 << (a - r)), out, budget);
         u.swap(a, a + 1);
+        return fits;
+    }
+    true
+}
+
+/// The refusal once the graph outgrows its caps (sizes as far as they were built: a lower bound).
+fn too_large(n: usize, states: usize, edges: usize) -> Error {
+    Error::TooLarge {
+        what: format!(
+            "the pipe dream state graph of this permutation of S_{n} (past its cap of \
+             {MAX_STATES} states and {MAX_EDGES} arrows)"
+        ),
+        bytes: (100 * states + 16 * edges) as u128,
+        instead: "no smaller route to this count is offered yet".into(),
     }
 }
 
@@ -137,7 +158,15 @@ impl PipeDreamGraph {
             let mut next: HashMap<Vec<u8>, u32> = HashMap::new();
             let mut next_list: Vec<Vec<u8>> = Vec::new();
             for u in &frontier {
-                for (field, child) in row_choices(u, r) {
+                // the choices of one state are distinct next states, so both caps bound them
+                let states = first_next + next_list.len();
+                let budget = MAX_EDGES
+                    .saturating_sub(g.edges.len())
+                    .min(MAX_STATES.saturating_sub(states));
+                let Some(choices) = row_choices(u, r, budget) else {
+                    return Err(too_large(n, MAX_STATES, MAX_EDGES));
+                };
+                for (field, child) in choices {
                     let id = *next.entry(child.clone()).or_insert_with(|| {
                         next_list.push(child);
                         u32::try_from(first_next + next_list.len() - 1).unwrap_or(u32::MAX)
@@ -148,11 +177,7 @@ impl PipeDreamGraph {
                 job.checkpoint(1)?;
                 let states = first_next + next_list.len();
                 if states > MAX_STATES || g.edges.len() > MAX_EDGES {
-                    return Err(Error::TooLarge {
-                        what: format!("the pipe dream state graph of this permutation of S_{n}"),
-                        bytes: (100 * states + 16 * g.edges.len()) as u128,
-                        instead: "no smaller route to this count is offered yet".into(),
-                    });
+                    return Err(too_large(n, states, g.edges.len()));
                 }
             }
             g.level.extend(std::iter::repeat_n(
@@ -230,7 +255,7 @@ impl PipeDreamGraph {
 }
 
 /// Bit offset of each row's field: row r (0-based) holds cells L - (n-1) - ... - (n-1-r) upward.
-fn row_offsets(n: usize) -> Vec<u32> {
+pub(super) fn row_offsets(n: usize) -> Vec<u32> {
     let cells = n * n.saturating_sub(1) / 2;
     let mut used = 0;
     (0..n.saturating_sub(1))

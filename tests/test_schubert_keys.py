@@ -135,3 +135,11 @@ def test_bad_input() -> None:
         schubert_key_expansion((1, 0))
     with pytest.raises(TypeError):
         stanley_schur_expansion(None)  # type: ignore[arg-type]
+
+
+@pytest.mark.slow
+def test_huge_stanley_search_is_refused_not_exhausting_memory() -> None:
+    # w0 of S_12 has 2^66 decreasing factorizations into 11 factors (hook-content count of
+    # staircase shape, Stanley 1984): the search stops at its memo cap with TooLargeError
+    with pytest.raises(druse.TooLargeError, match="decreasing factorizations"):
+        druse.stanley_schur_expansion(tuple(range(12, 0, -1)))

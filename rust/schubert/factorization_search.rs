@@ -24,6 +24,10 @@ struct Search<'a> {
 /// Memo of `can_finish`, keyed by the packed inverse of the rest, the bound and the factors left.
 type Finishes = HashMap<([u64; 3], usize, usize), bool>;
 
+/// Entries of the memo (about 60 bytes each with the table's overhead) before the search gives
+/// up: past it `can_finish` answers false at once, and `grow` refuses with `TooLarge`.
+const MEMO_CAP: usize = 1 << 23;
+
 /// The inverse permutation packed 5 bits an entry (n <= 32).
 fn packed(inverse: &[usize]) -> [u64; 3] {
     let mut out = [0u64; 3];
@@ -65,6 +69,9 @@ fn can_finish(
     let key = (packed(inverse), below, k);
     if let Some(&known) = memo.get(&key) {
         return known;
+    }
+    if memo.len() >= MEMO_CAP {
+        return false; // unwinds the search quickly; the caller sees the full memo and refuses
     }
     let mut ok = k > 1 && can_finish(memo, inverse, (n, k - 1, floor), left);
     // bounded: the factor with k left is u^(m-k+1), whose letters are at least m - k + 1
@@ -121,12 +128,23 @@ pub fn enumerate(
 impl Search<'_> {
     /// Extends factor r (0-based) with letters below `below`, `left` letters still to write.
     fn grow(&mut self, r: usize, below: usize, left: usize) -> Result<(), Error> {
-        if !can_finish(
+        let finishes = can_finish(
             &mut self.finishes,
             &mut self.inverse,
             (below, self.m - r, self.floor),
             left,
-        ) {
+        );
+        if self.finishes.len() >= MEMO_CAP {
+            return Err(Error::TooLarge {
+                what: "the search for the decreasing factorizations of this permutation".into(),
+                bytes: u128::try_from(MEMO_CAP * 60).unwrap_or(u128::MAX),
+                instead: "use druse.pipe_dreams, or druse.schubert_key_expansion with \
+                          method=\"polynomial\" (a smaller permutation for the Stanley \
+                          symmetric function)"
+                    .to_string(),
+            });
+        }
+        if !finishes {
             return Ok(());
         }
         if r + 1 == self.m {

@@ -6,6 +6,7 @@ import json
 from pathlib import Path
 from typing import Any
 
+import druse
 from clirun import ok, refused, run
 
 
@@ -122,3 +123,14 @@ def test_crystal_output_graphml_by_suffix(tmp_path: Path) -> None:
     ok("crystal", "3,1", "3", "--output", path)
     # B(3,1) of GL_3 has 15 vertices (hook-content formula)
     assert json.loads(ok("check", path, "--json"))["vertices"] == 15
+
+
+def test_recognise_a_truncated_crystal_file(tmp_path: Path) -> None:
+    # the pipe-dream crystal is a union of Demazure crystals whose keys sum to S_w
+    # (Assaf-Schilling, "A Demazure crystal construction for Schubert polynomials", 2018)
+    path = str(tmp_path / "pipes.json")
+    druse.save_crystal(druse.pipe_dream_crystal((2, 5, 1, 4, 3)), path)
+    doc = json.loads(ok("recognise", path, "--json"))
+    assert all(p["demazure"] for p in doc["pieces"])
+    expected = druse.schubert_key_expansion((2, 5, 1, 4, 3), method="polynomial")
+    assert {tuple(a): c for a, c in doc["key_expansion"]} == expected

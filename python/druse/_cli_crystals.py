@@ -260,19 +260,23 @@ def _subset(text: str, size: int) -> list[int]:
     "--vertices",
     "-v",
     "subset",
-    required=True,
-    help="The subset: vertex indices 0,3,5 or @FILE with a JSON array of them.",
+    help="The subset: vertex indices 0,3,5 or @FILE with a JSON array of them. Without it, the "
+    "crystal itself is taken as truncated (arrows cut where they leave it, like a pipe-dream "
+    "crystal) and each component is matched into B(lambda).",
 )
 @click.option("--format", "fmt", type=_FORMATS, help="File format (default: from the suffix).")
 @click.option("--json", "as_json", is_flag=True, help="Print the pieces as JSON.")
-def recognise(path: str, subset: str, fmt: str | None, as_json: bool) -> None:
-    """Decide, component by component, whether a vertex subset of the crystal in PATH is a
-    Demazure crystal B_w(lambda); print w and its key w.lambda, or a witness why not."""
+def recognise(path: str, subset: str | None, fmt: str | None, as_json: bool) -> None:
+    """Decide, component by component, whether a vertex subset of the crystal in PATH (or the
+    whole crystal, read as truncated) is a Demazure crystal B_w(lambda); print w and its key
+    w.lambda, or a witness why not."""
     c = _load(path, fmt)
-    mask = np.zeros(len(c), dtype=np.bool_)
-    mask[_subset(subset, len(c))] = True
+    mask = np.ones(len(c), dtype=np.bool_)
+    if subset is not None:
+        mask[:] = False
+        mask[_subset(subset, len(c))] = True
     with _library_errors():
-        found = druse.demazure_recognition(c, mask)
+        found = druse.demazure_recognition(c, None if subset is None else mask)
         expansion = found.key_expansion()
     if as_json:
         terms = None if expansion is None else [[list(a), k] for a, k in expansion.items()]
@@ -288,6 +292,8 @@ def recognise(path: str, subset: str, fmt: str | None, as_json: bool) -> None:
             click.echo(
                 f"    not Demazure: {w.kind} at vertex {w.vertex} (other {w.other}, i {w.i})"
             )
+            if w.detail:
+                click.echo(f"    {w.detail}")
     if expansion is not None:
         terms_text = " + ".join(f"{k}*key{_format_parts(a)}" for a, k in expansion.items())
         click.echo(f"character: {terms_text}")
@@ -305,5 +311,12 @@ def _piece_doc(p: druse.DemazurePiece) -> dict[str, object]:
         "key": None if p.key is None else list(p.key),
         "witness": None
         if w is None
-        else {"kind": w.kind, "vertex": w.vertex, "other": w.other, "i": w.i},
+        else {
+            "kind": w.kind,
+            "vertex": w.vertex,
+            "other": w.other,
+            "i": w.i,
+            "model_vertex": w.model_vertex,
+            "detail": w.detail,
+        },
     }

@@ -25,13 +25,22 @@ found by this test:
 The components are assumed to be highest weight crystals B(lambda) (each has exactly one
 highest weight vertex, of dominant weight; that much is checked here). The key expansion of the
 mask's character, when every piece is Demazure, is the sum of key(w.lambda) over the pieces.
+
+*Truncated crystals.* With no mask, the crystal itself is taken to be a union of vertex subsets
+of crystals B(lambda), each with the arrows of B(lambda) inside it (f_i = -1 where the full
+operator would leave): the crystal on pipe dreams of Assaf-Schilling, "A Demazure crystal
+construction for Schubert polynomials", 2018, is one. Each component is embedded into
+B(lambda) by the forced map (highest weight vertex to highest weight tableau, f_i to f_i;
+:mod:`druse._embedding`), the embedding and the honesty of the truncation are checked, and the
+image is put through the test above, with B(lambda) evaluated only at the image and its
+neighbours.
 """
 
 from __future__ import annotations
 
 import itertools
 from collections.abc import Iterator
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
 import numpy.typing as npt
@@ -67,6 +76,22 @@ class DemazureWitness:
         The operator index for ``"cut_string"``.
     key : tuple of int or None
         The weight of ``vertex`` when it is extremal.
+    model_vertex : int or None
+        Truncated crystals only (``mask=None``): a vertex of B(lambda), numbered as in
+        ``druse.crystal(lambda, n)``: the one ``other`` would be when it lies outside the given
+        crystal (``other`` is then None), or the image of ``vertex`` for the embedding kinds.
+    detail : str
+        What differs, for the embedding kinds (empty otherwise).
+
+    The truncated route adds kinds for a component that is not a truncation of B(lambda):
+    ``"no_highest_weight"`` (every vertex has some e_i), ``"two_highest_weights"`` (``vertex``
+    and ``other`` are both killed by every e_i), ``"not_partition"`` (the weight of the highest
+    weight vertex is not a partition), ``"arrow_not_in_model"`` (the arrow ``vertex`` --i-->
+    ``other``, by f_i or e_i as ``detail`` says, does not map to the arrow of B(lambda)),
+    ``"not_reached"`` (no f path from the highest weight vertex), ``"weight_differs"`` (weight
+    of ``vertex`` and of its image), ``"not_injective"`` (``vertex`` and ``other`` have one
+    image) and ``"missing_arrow"`` (B(lambda) has the arrow from the image of ``vertex`` to that
+    of ``other``; the crystal has not: a dishonest truncation).
     """
 
     kind: str
@@ -74,6 +99,8 @@ class DemazureWitness:
     other: int | None = None
     i: int | None = None
     key: Composition | None = None
+    model_vertex: int | None = None
+    detail: str = ""
 
 
 @dataclass(frozen=True)
@@ -98,6 +125,12 @@ class DemazurePiece:
         The composition w.lambda, (w.lambda)_{w(j)} = lambda_j: the character is key(w.lambda).
     witness : DemazureWitness or None
         Why not, when ``is_demazure`` is False.
+    embedding : numpy int64 array or None
+        Truncated crystals only: the vertex of ``druse.crystal(weight, n)`` of each vertex of
+        the component (ascending), when the component embeds.
+
+    A component of a truncated crystal with no highest weight vertex has ``highest_weight``
+    -1 and ``weight`` ().
     """
 
     highest_weight: int
@@ -108,6 +141,7 @@ class DemazurePiece:
     word: tuple[int, ...] | None = None
     key: Composition | None = None
     witness: DemazureWitness | None = None
+    embedding: IntArray | None = field(default=None, compare=False, repr=False)
 
 
 @dataclass(frozen=True)
@@ -183,13 +217,23 @@ def _inversions(weights: npt.NDArray[np.int32]) -> IntArray:
 
 
 class _Component:
-    """One component as its own small table (local vertex numbers), for closures."""
+    """One component as its own small table (local vertex numbers), for closures.
 
-    def __init__(self, crystal: Crystal, vertices: IntArray, position: IntArray) -> None:
+    ``vertices[v]`` is the crystal's vertex at local v, or -1 for a vertex outside the crystal
+    (an exit of a truncated crystal into B(lambda)); ``images[v]`` is then its vertex there.
+    """
+
+    def __init__(
+        self, ops: list[IntArray], vertices: IntArray, images: IntArray | None = None
+    ) -> None:
+        self.ops = ops
         self.vertices = vertices
-        self.ops = [
-            np.ascontiguousarray(position[crystal.f(i)[vertices]]) for i in range(1, crystal.n)
-        ]
+        self.images = images
+
+    @classmethod
+    def of_crystal(cls, crystal: Crystal, vertices: IntArray, position: IntArray) -> _Component:
+        ops = [np.ascontiguousarray(position[crystal.f(i)[vertices]]) for i in range(1, crystal.n)]
+        return cls(ops, vertices)
 
     def closure(self, top: int, alpha: Composition) -> tuple[BoolArray, tuple[int, ...]]:
         w = shortest_permutation(alpha)
@@ -197,28 +241,53 @@ class _Component:
         local = _core.demazure_closure(self.ops, self.vertices.size, [top], list(word))
         return local, w
 
+    def witness(
+        self, kind: str, x: int, other: int | None = None, key: Composition | None = None
+    ) -> DemazureWitness:
+        """A witness on local vertices, named by the crystal's (or B(lambda)'s) vertices."""
+        if other is None or self.vertices[other] >= 0:
+            named = None if other is None else int(self.vertices[other])
+            return DemazureWitness(kind, int(self.vertices[x]), named, key=key)
+        assert self.images is not None  # only truncated crystals have exits
+        image = int(self.images[other])
+        return DemazureWitness(kind, int(self.vertices[x]), key=key, model_vertex=image)
 
-def demazure_recognition(crystal: Crystal, mask: npt.ArrayLike) -> DemazureRecognition:
-    """Decide, component by component, whether ``mask`` is a Demazure crystal B_w(lambda).
+
+def demazure_recognition(
+    crystal: Crystal, mask: npt.ArrayLike | None = None
+) -> DemazureRecognition:
+    """Decide, component by component, whether ``mask`` is a Demazure crystal B_w(lambda); or,
+    with no mask, whether a truncated crystal is a union of Demazure crystals.
 
     Parameters
     ----------
     crystal : Crystal
-        Any druse crystal whose components are highest weight crystals B(lambda).
-    mask : array of bool, shape (len(crystal),)
-        The vertex subset.
+        With a mask: any druse crystal whose components are highest weight crystals B(lambda).
+        Without: a crystal-like graph whose arrows may stop short (f_i = -1 where the full
+        operator would leave the set), such as :func:`druse.pipe_dream_crystal`.
+    mask : array of bool, shape (len(crystal),), optional
+        The vertex subset. None: each component of ``crystal`` is embedded into
+        B(lambda) (lambda the weight of its vertex killed by every e_i), checked to be the
+        subgraph of B(lambda) induced on its image (every arrow maps to the arrow of the same
+        colour, weights agree, no two vertices share an image, and every arrow of B(lambda)
+        between images is present), and its image is recognised in B(lambda) as with a mask.
+        A component that fails gets a witness naming vertices, i and what differs; B(lambda)
+        is never enumerated, only evaluated on the image (module ``druse._embedding``).
 
     Returns
     -------
     DemazureRecognition
         One piece per component meeting the mask, with w, a reduced word and the key w.lambda,
         or a witness; and the key expansion of the mask's character when all are Demazure.
+        Pieces name vertices of ``crystal``; ``model_vertex`` of a witness names one of
+        ``druse.crystal(lambda, n)`` that has no counterpart in a truncated crystal.
 
     Raises
     ------
     TypeError, ValueError
         If crystal is not a Crystal, mask is not a bool array of the right shape, or a component
-        meeting the mask does not have exactly one highest weight vertex of dominant weight.
+        meeting the mask does not have exactly one highest weight vertex of dominant weight
+        (with a mask; without one, that is a witness).
 
     Examples
     --------
@@ -228,9 +297,18 @@ def demazure_recognition(crystal: Crystal, mask: npt.ArrayLike) -> DemazureRecog
     >>> piece = demazure_recognition(C, C.demazure((2, 1)))[0]
     >>> piece.is_demazure, piece.perm, piece.key
     (True, (3, 1, 2), (1, 0, 2))
+    >>> P = druse.pipe_dream_crystal((2, 1, 4, 3))
+    >>> [p.perm for p in demazure_recognition(P)]
+    [(1, 3, 2, 4), (1, 2, 3, 4)]
+    >>> demazure_recognition(P).key_expansion()
+    {(1, 0, 1, 0): 1, (2, 0, 0, 0): 1}
     """
     if not isinstance(crystal, Crystal):
         raise TypeError(f"crystal must be a druse Crystal; got {type(crystal).__name__}")
+    if mask is None:
+        from druse._embedding import truncated_recognition  # it imports this module
+
+        return truncated_recognition(crystal)
     m = _mask(crystal, mask)
     labels = crystal.components()
     cuts = _cut_strings(crystal, m, labels)
@@ -250,7 +328,9 @@ def demazure_recognition(crystal: Crystal, mask: npt.ArrayLike) -> DemazureRecog
         position[vertices] = np.arange(vertices.size)
         top = _top_of(int(vertices[0]), tops.get(int(labels[vertices[0]]), []), weights)
         cut = cuts.get(int(labels[vertices[0]]))
-        pieces.append(_piece(crystal, vertices, position, m, top, weights, cut))
+        comp = _Component.of_crystal(crystal, vertices, position)
+        local = _Local(comp, int(position[top]), m[vertices], weights[vertices])
+        pieces.append(_piece(local, top, tuple(int(x) for x in weights[top]), cut))
     return DemazureRecognition(tuple(pieces))
 
 
@@ -266,61 +346,49 @@ def _top_of(label: int, tops: list[int], weights: npt.NDArray[np.int32]) -> int:
     return tops[0]
 
 
-def _piece(
-    crystal: Crystal,
-    vertices: IntArray,
-    position: IntArray,
-    m: BoolArray,
-    top: int,
-    weights: npt.NDArray[np.int32],
-    cut: DemazureWitness | None,
-) -> DemazurePiece:
-    lam = tuple(int(x) for x in weights[top])
-    inside = m[vertices]
+@dataclass(frozen=True)
+class _Local:
+    """A component's table with its highest weight vertex, mask and weights (local numbers)."""
+
+    comp: _Component
+    top: int
+    inside: BoolArray
+    wt: npt.NDArray[np.int32]
+
+
+def _piece(local: _Local, top: int, lam: Composition, cut: DemazureWitness | None) -> DemazurePiece:
+    comp, inside, wt = local.comp, local.inside, local.wt
     size = int(inside.sum())
     if cut is not None:
         return DemazurePiece(top, lam, size, False, witness=cut)
-    comp = _Component(crystal, vertices, position)
-    wt = weights[vertices]
     extremal = np.flatnonzero(inside & (np.sort(wt, axis=1)[:, ::-1] == np.array(lam)).all(axis=1))
     lengths = _inversions(wt[extremal])
     best = extremal[lengths == lengths.max()]
     if best.size == 1:
         alpha = tuple(int(x) for x in wt[best[0]])
-        closed, w = comp.closure(int(position[top]), alpha)
+        closed, w = comp.closure(local.top, alpha)
         if np.array_equal(closed, inside):
             return DemazurePiece(top, lam, size, True, w, reduced_word(w), alpha)
-    return DemazurePiece(
-        top, lam, size, False, witness=_why_not(comp, top, position, inside, wt, extremal)
-    )
+    return DemazurePiece(top, lam, size, False, witness=_why_not(local, extremal))
 
 
-def _why_not(
-    comp: _Component,
-    top: int,
-    position: IntArray,
-    inside: BoolArray,
-    wt: npt.NDArray[np.int32],
-    extremal: IntArray,
-) -> DemazureWitness:
+def _why_not(local: _Local, extremal: IntArray) -> DemazureWitness:
+    comp, inside, wt = local.comp, local.inside, local.wt
     union = np.zeros(inside.size, dtype=np.bool_)
     maximal: list[tuple[int, BoolArray]] = []
     for x in extremal[np.argsort(-_inversions(wt[extremal]), kind="stable")]:
         alpha = tuple(int(v) for v in wt[x])
-        closed, _ = comp.closure(int(position[top]), alpha)
+        closed, _ = comp.closure(local.top, alpha)
         outside = np.flatnonzero(closed & ~inside)
         if outside.size:
-            return DemazureWitness(
-                "closure_leaves", int(comp.vertices[x]), int(comp.vertices[outside[0]]), key=alpha
-            )
+            return comp.witness("closure_leaves", int(x), int(outside[0]), key=alpha)
         if not any(c[x] for _, c in maximal):
             maximal.append((int(x), closed))
         union |= closed
     missed = np.flatnonzero(inside & ~union)
     if missed.size:
-        return DemazureWitness("unreached", int(comp.vertices[missed[0]]))
+        return comp.witness("unreached", int(missed[0]))
     if len(maximal) < 2:
         raise InternalError("Demazure recognition: a single maximal closure was missed")
     (x, _), (y, _) = maximal[0], maximal[1]
-    alpha = tuple(int(v) for v in wt[x])
-    return DemazureWitness("union", int(comp.vertices[x]), int(comp.vertices[y]), key=alpha)
+    return comp.witness("union", x, y, key=tuple(int(v) for v in wt[x]))

@@ -1,5 +1,6 @@
 //! PyO3 bindings: conversions only, one file per kernel module.
 mod axioms;
+mod convert;
 mod crystal;
 mod demazure;
 mod errors;

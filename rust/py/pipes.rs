@@ -9,21 +9,12 @@ use numpy::ndarray::Array2;
 use numpy::{IntoPyArray, PyArray2, PyReadonlyArray2, PyUntypedArrayMethods};
 use pyo3::prelude::*;
 
+use super::convert::array2;
+
 /// The state graph of the pipe dreams of one permutation: count, whole enumeration, ranges.
 #[pyclass(module = "druse._core", frozen)]
 pub struct PipeDreamModel {
     graph: PipeDreamGraph,
-}
-
-fn array2<T: numpy::Element>(
-    py: Python<'_>,
-    rows: usize,
-    cols: usize,
-    v: Vec<T>,
-) -> Bound<'_, PyArray2<T>> {
-    Array2::from_shape_vec((rows, cols), v)
-        .expect("kernels return rows * cols values")
-        .into_pyarray(py)
 }
 
 #[pymethods]

@@ -8,6 +8,8 @@ use numpy::ndarray::Array2;
 use numpy::{IntoPyArray, PyArray1, PyArray2, PyReadonlyArray2, PyUntypedArrayMethods};
 use pyo3::prelude::*;
 
+use super::convert::coeff_list;
+
 type TermsOut<'py> = (Bound<'py, PyArray2<i64>>, Bound<'py, PyAny>);
 /// Many polynomials' terms one after another, and the N+1 offsets where each starts.
 type BlockOut<'py> = (
@@ -21,18 +23,7 @@ fn to_python(py: Python<'_>, terms: Terms) -> PyResult<TermsOut<'_>> {
     let rows = terms.len();
     let array = Array2::from_shape_vec((rows, terms.nvars), terms.exps)
         .map_err(|_| Error::invalid("poly kernel returned a ragged exponent array"))?;
-    let list = match terms.coeffs {
-        // i64 converts faster than i128, and small values come from Python's cache
-        CoeffVec::Small(v) => match v
-            .iter()
-            .map(|&c| i64::try_from(c))
-            .collect::<Result<Vec<_>, _>>()
-        {
-            Ok(narrow) => narrow.into_pyobject(py)?.into_any(),
-            Err(_) => v.into_pyobject(py)?.into_any(),
-        },
-        CoeffVec::Big(v) => v.into_pyobject(py)?.into_any(),
-    };
+    let list = coeff_list(py, terms.coeffs)?;
     Ok((array.into_pyarray(py), list))
 }
 

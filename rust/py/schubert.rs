@@ -2,11 +2,13 @@
 use super::run::run_detached;
 use crate::error::Error;
 use crate::perm;
-use crate::poly::{CoeffVec, Terms};
+use crate::poly::Terms;
 use crate::schubert::{self, AllSchuberts};
 use numpy::ndarray::{Array1, Array2};
 use numpy::{IntoPyArray, PyArray1, PyArray2};
 use pyo3::prelude::*;
+
+use super::convert::coeff_list;
 use std::sync::{Mutex, MutexGuard, TryLockError};
 
 type TermsOut<'py> = (Bound<'py, PyArray2<i64>>, Bound<'py, PyAny>);
@@ -15,21 +17,6 @@ type BatchOut<'py> = (
     Bound<'py, PyAny>,
     Bound<'py, PyArray1<i64>>,
 );
-
-/// Coefficients as a list of Python ints (i64 when they fit: faster, and small values cached).
-fn coeff_list(py: Python<'_>, coeffs: CoeffVec) -> PyResult<Bound<'_, PyAny>> {
-    Ok(match coeffs {
-        CoeffVec::Small(v) => match v
-            .iter()
-            .map(|&c| i64::try_from(c))
-            .collect::<Result<Vec<_>, _>>()
-        {
-            Ok(narrow) => narrow.into_pyobject(py)?.into_any(),
-            Err(_) => v.into_pyobject(py)?.into_any(),
-        },
-        CoeffVec::Big(v) => v.into_pyobject(py)?.into_any(),
-    })
-}
 
 fn rows(exps: Vec<i64>, nvars: usize) -> Result<Array2<i64>, Error> {
     let count = exps.len().checked_div(nvars).unwrap_or(0);

@@ -2,25 +2,15 @@
 use super::run::{run_detached, run_quick};
 use crate::error::Error;
 use crate::tableau::{self, Model};
-use numpy::ndarray::Array2;
 use numpy::{IntoPyArray, PyArray1, PyArray2, PyReadonlyArray2};
 use pyo3::prelude::*;
+
+use super::convert::array2;
 
 /// Tables of SSYT(shape, n); methods take the tableau array that `enumerate` returned.
 #[pyclass(module = "druse._core", frozen)]
 pub struct TableauModel {
     model: Model,
-}
-
-fn array2<T: numpy::Element>(
-    py: Python<'_>,
-    rows: usize,
-    cols: usize,
-    v: Vec<T>,
-) -> Bound<'_, PyArray2<T>> {
-    Array2::from_shape_vec((rows, cols), v)
-        .expect("kernels return rows * cols values")
-        .into_pyarray(py)
 }
 
 type Lengths<'py> = (Bound<'py, PyArray1<i32>>, Bound<'py, PyArray1<i32>>);

@@ -3,7 +3,8 @@ use super::*;
 use crate::error::Error;
 use crate::job::Job;
 
-fn poly(nvars: usize, terms: &[(&[i64], i128)]) -> Terms {
+/// Terms from (exponents, coefficient) pairs; shared with the expansion kernel's tests.
+pub(super) fn poly(nvars: usize, terms: &[(&[i64], i128)]) -> Terms {
     let exps = terms.iter().flat_map(|(r, _)| r.iter().copied()).collect();
     Terms::new(
         nvars,

@@ -1,4 +1,5 @@
 //! Bindings for `axioms`: axiom checks with witnesses, and the map to a model crystal.
+use super::convert::slices;
 use super::run::run_detached;
 use crate::axioms::iso::{map_to_model, Walk};
 use crate::axioms::{self, Axiom, Options, Table};
@@ -16,16 +17,6 @@ type Mapped<'py> = (
     Option<Bound<'py, PyArray1<i64>>>,
     Option<(usize, usize, String)>,
 );
-
-fn slices<'a, T: numpy::Element>(arrays: &'a [PyReadonlyArray1<'_, T>]) -> PyResult<Vec<&'a [T]>> {
-    arrays
-        .iter()
-        .map(|a| {
-            a.as_slice()
-                .map_err(|_| Error::invalid("crystal arrays must be contiguous").into())
-        })
-        .collect()
-}
 
 /// A validated table over borrowed numpy arrays.
 fn table<'a>(
@@ -45,8 +36,8 @@ fn table<'a>(
     let t = Table {
         n,
         count,
-        f: slices(lowering)?,
-        e: slices(raising)?,
+        f: slices(lowering, "crystal arrays")?,
+        e: slices(raising, "crystal arrays")?,
         weights,
         declared: None,
     };
@@ -71,7 +62,10 @@ fn check_axioms<'py>(
 ) -> PyResult<Checked> {
     let mut t = table(n, count, &lowering, &raising, weights.as_ref())?;
     if let Some((phi, eps)) = &declared {
-        t.declared = Some((slices(phi)?, slices(eps)?));
+        t.declared = Some((
+            slices(phi, "crystal arrays")?,
+            slices(eps, "crystal arrays")?,
+        ));
     }
     let options = Options {
         stembridge,

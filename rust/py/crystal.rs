@@ -1,22 +1,12 @@
 //! Bindings for `crystal`: algorithms on any crystal table.
+use super::convert::{array2, slices};
 use super::run::run_detached;
 use crate::crystal;
 use crate::error::Error;
-use numpy::ndarray::Array2;
 use numpy::{
     IntoPyArray, PyArray1, PyArray2, PyReadonlyArray1, PyReadonlyArray2, PyUntypedArrayMethods,
 };
 use pyo3::prelude::*;
-
-fn slices<'a>(arrays: &'a [PyReadonlyArray1<'_, i64>]) -> PyResult<Vec<&'a [i64]>> {
-    arrays
-        .iter()
-        .map(|a| {
-            a.as_slice()
-                .map_err(|_| Error::invalid("operator arrays must be contiguous").into())
-        })
-        .collect()
-}
 
 /// Length of the string from each vertex along `next` (f_i gives phi_i, e_i gives epsilon_i).
 #[pyfunction]
@@ -58,7 +48,7 @@ fn per_vertex<'py>(
     count: usize,
     kernel: fn(&[&[i64]], usize) -> Vec<i64>,
 ) -> PyResult<Bound<'py, PyArray1<i64>>> {
-    let s = slices(ops)?;
+    let s = slices(ops, "operator arrays")?;
     crystal::check_arrays(&s, count, "operator")?;
     Ok(run_detached(py, |_| Ok(kernel(&s, count)))?.into_pyarray(py))
 }
@@ -86,9 +76,7 @@ fn character<'py>(
     let (exps, coeffs) = run_detached(py, |job| crystal::character(w, n, count, m, job))?;
     let terms = coeffs.len();
     let exps: Vec<i64> = exps.into_iter().map(i64::from).collect();
-    let arr = Array2::from_shape_vec((terms, n), exps)
-        .expect("terms * n exponents")
-        .into_pyarray(py);
+    let arr = array2(py, terms, n, exps);
     Ok((arr, coeffs))
 }
 

@@ -1,10 +1,10 @@
 //! Bindings for `demazure` (closures and atoms on a crystal table) and `perm` (permutations).
+use super::convert::{array2, slices};
 use super::run::{run_detached, run_quick};
 use crate::crystal;
 use crate::demazure;
 use crate::error::Error;
 use crate::perm;
-use numpy::ndarray::Array2;
 use numpy::{IntoPyArray, PyArray1, PyArray2, PyReadonlyArray1};
 use pyo3::prelude::*;
 
@@ -14,13 +14,7 @@ fn table<'a>(
     count: usize,
     start: &[i64],
 ) -> PyResult<(Vec<&'a [i64]>, Vec<u64>)> {
-    let f = ops
-        .iter()
-        .map(|a| {
-            a.as_slice()
-                .map_err(|_| Error::invalid("operator arrays must be contiguous"))
-        })
-        .collect::<Result<Vec<_>, _>>()?;
+    let f = slices(ops, "operator arrays")?;
     crystal::check_arrays(&f, count, "lowering")?;
     Ok((f, demazure::mask_of(start, count)?))
 }
@@ -80,9 +74,7 @@ fn demazure_all<'py>(
         Ok((total, flat))
     })?;
     let (total, flat) = rows;
-    Ok(Array2::from_shape_vec((total, count), flat)
-        .expect("one row per permutation")
-        .into_pyarray(py))
+    Ok(array2(py, total, count, flat))
 }
 
 /// Coxeter length (inversions) of a 1-based permutation.

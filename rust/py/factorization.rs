@@ -1,8 +1,8 @@
 //! Bindings for `schubert::factorization`: the crystal on decreasing factorizations.
+use super::convert::array2;
 use super::run::run_detached;
 use crate::perm;
 use crate::schubert::factorization;
-use numpy::ndarray::Array2;
 use numpy::{IntoPyArray, PyArray1, PyArray2};
 use pyo3::prelude::*;
 
@@ -30,15 +30,15 @@ fn factorization_crystal(
         factorization::build(&w, (factors, bounded_only), limit, job)
     })?;
     let (count, n) = (c.count(), c.m);
-    let weights = Array2::from_shape_vec((count, n), c.weights()).expect("count x n weights");
+    let weights = array2(py, count, n, c.weights());
     let bounded = c.bounded();
-    let factors = Array2::from_shape_vec((count, n), c.factors).expect("count x n factors");
+    let factors = array2(py, count, n, c.factors);
     let arrays = |v: Vec<Vec<i64>>| v.into_iter().map(|a| a.into_pyarray(py)).collect();
     Ok((
-        factors.into_pyarray(py),
+        factors,
         arrays(c.lowering),
         arrays(c.raising),
-        weights.into_pyarray(py),
+        weights,
         bounded.into_pyarray(py),
     ))
 }

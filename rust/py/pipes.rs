@@ -1,15 +1,13 @@
 //! Bindings for `schubert::pipes` and `schubert::pipes_read`: reduced pipe dreams as masks.
+use super::convert::array2;
 use super::run::run_detached;
 use crate::error::Error;
 use crate::perm;
 use crate::schubert::pipes::{mask_words, PipeDreamGraph};
 use crate::schubert::pipes_read;
 use num_bigint::BigUint;
-use numpy::ndarray::Array2;
-use numpy::{IntoPyArray, PyArray2, PyReadonlyArray2, PyUntypedArrayMethods};
+use numpy::{PyArray2, PyReadonlyArray2, PyUntypedArrayMethods};
 use pyo3::prelude::*;
-
-use super::convert::array2;
 
 /// The state graph of the pipe dreams of one permutation: count, whole enumeration, ranges.
 #[pyclass(module = "druse._core", frozen)]
@@ -87,13 +85,8 @@ fn pipe_dream_read<'py>(
         }
         pipes_read::read(flat, count, n, length, job)
     })?;
-    let shaped = |v: Vec<u8>| {
-        Array2::from_shape_vec((count, length), v)
-            .expect("one row per mask")
-            .into_pyarray(py)
-    };
-    let weights = Array2::from_shape_vec((count, n), weights).expect("one row per mask");
-    Ok((weights.into_pyarray(py), shaped(letters), shaped(rows)))
+    let shaped = |v: Vec<u8>| array2(py, count, length, v);
+    Ok((array2(py, count, n, weights), shaped(letters), shaped(rows)))
 }
 
 /// S_w(1, ..., 1), the number of reduced pipe dreams of a 1-based permutation.

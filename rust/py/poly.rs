@@ -1,30 +1,16 @@
 //! Bindings for `poly`: key polynomials, Demazure atoms, the divided-difference operators, and
 //! key and atom expansions (one polynomial, or batches sharing an `ExpansionCache`).
+use super::convert::{terms_out, BlockOut, TermsOut};
 use super::run::run_detached;
 use crate::error::Error;
 use crate::poly::{self, Basis, CoeffVec, ExpansionCache, Operator, Terms};
 use num_bigint::BigInt;
-use numpy::ndarray::Array2;
-use numpy::{IntoPyArray, PyArray1, PyArray2, PyReadonlyArray2, PyUntypedArrayMethods};
+use numpy::{IntoPyArray, PyReadonlyArray2, PyUntypedArrayMethods};
 use pyo3::prelude::*;
-
-use super::convert::coeff_list;
-
-type TermsOut<'py> = (Bound<'py, PyArray2<i64>>, Bound<'py, PyAny>);
-/// Many polynomials' terms one after another, and the N+1 offsets where each starts.
-type BlockOut<'py> = (
-    Bound<'py, PyArray2<i64>>,
-    Bound<'py, PyAny>,
-    Bound<'py, PyArray1<i64>>,
-);
 
 /// Canonical terms to (exponents (T, nvars) int64, list of Python ints).
 fn to_python(py: Python<'_>, terms: Terms) -> PyResult<TermsOut<'_>> {
-    let rows = terms.len();
-    let array = Array2::from_shape_vec((rows, terms.nvars), terms.exps)
-        .map_err(|_| Error::invalid("poly kernel returned a ragged exponent array"))?;
-    let list = coeff_list(py, terms.coeffs)?;
-    Ok((array.into_pyarray(py), list))
+    terms_out(py, terms.nvars, terms.exps, terms.coeffs)
 }
 
 /// The key polynomial of the weak composition `alpha`, canonical terms.

@@ -1,38 +1,18 @@
 //! Bindings for `schubert`: one Schubert polynomial (two routes) and the whole-S_n batch.
+use super::convert::{terms_out, BlockOut, TermsOut};
 use super::run::run_detached;
 use crate::error::Error;
 use crate::perm;
 use crate::poly::Terms;
 use crate::schubert::{self, AllSchuberts};
-use numpy::ndarray::{Array1, Array2};
-use numpy::{IntoPyArray, PyArray1, PyArray2};
+use numpy::ndarray::Array1;
+use numpy::IntoPyArray;
 use pyo3::prelude::*;
-
-use super::convert::coeff_list;
 use std::sync::{Mutex, MutexGuard, TryLockError};
-
-type TermsOut<'py> = (Bound<'py, PyArray2<i64>>, Bound<'py, PyAny>);
-type BatchOut<'py> = (
-    Bound<'py, PyArray2<i64>>,
-    Bound<'py, PyAny>,
-    Bound<'py, PyArray1<i64>>,
-);
-
-fn rows(exps: Vec<i64>, nvars: usize) -> Result<Array2<i64>, Error> {
-    let count = exps.len().checked_div(nvars).unwrap_or(0);
-    Array2::from_shape_vec((count, nvars), exps)
-        .map_err(|_| Error::invalid("schubert kernel returned a ragged exponent array"))
-}
 
 /// Canonical terms to (exponents (T, nvars) int64, list of Python ints).
 fn to_python(py: Python<'_>, terms: Terms) -> PyResult<TermsOut<'_>> {
-    let (nvars, count) = (terms.nvars, terms.len());
-    let array = if nvars == 0 {
-        Array2::zeros((count, 0))
-    } else {
-        rows(terms.exps, nvars)?
-    };
-    Ok((array.into_pyarray(py), coeff_list(py, terms.coeffs)?))
+    terms_out(py, terms.nvars, terms.exps, terms.coeffs)
 }
 
 /// S_w of the 1-based permutation `perm` by the transition recursion, canonical terms.
@@ -88,19 +68,10 @@ impl SchubertBatch {
     }
 
     /// (exponents (T, n), coefficients, offsets (n! + 1,)): S_w in lexicographic order of w.
-    fn collect<'py>(&self, py: Python<'py>) -> PyResult<BatchOut<'py>> {
+    fn collect<'py>(&self, py: Python<'py>) -> PyResult<BlockOut<'py>> {
         let (exps, coeffs, offsets) = self.lock()?.collect()?;
-        let count = coeffs.len();
-        let array = if self.n == 0 {
-            Array2::zeros((count, 0))
-        } else {
-            rows(exps, self.n)?
-        };
-        Ok((
-            array.into_pyarray(py),
-            coeff_list(py, coeffs)?,
-            Array1::from_vec(offsets).into_pyarray(py),
-        ))
+        let (array, list) = terms_out(py, self.n, exps, coeffs)?;
+        Ok((array, list, Array1::from_vec(offsets).into_pyarray(py)))
     }
 }
 

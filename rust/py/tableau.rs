@@ -1,11 +1,10 @@
 //! Bindings for `tableau`: the model of SSYT(shape, n) and its crystal operators.
+use super::convert::array2;
 use super::run::{run_detached, run_quick};
 use crate::error::Error;
 use crate::tableau::{self, Model};
 use numpy::{IntoPyArray, PyArray1, PyArray2, PyReadonlyArray2};
 use pyo3::prelude::*;
-
-use super::convert::array2;
 
 /// Tables of SSYT(shape, n); methods take the tableau array that `enumerate` returned.
 #[pyclass(module = "druse._core", frozen)]

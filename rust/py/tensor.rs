@@ -1,8 +1,8 @@
 //! Bindings for `tensor`: the tensor product of two crystal tables.
+use super::convert::{array2, slices};
 use super::run::run_detached;
 use crate::error::Error;
 use crate::tensor::{self, Factor};
-use numpy::ndarray::Array2;
 use numpy::{
     IntoPyArray, PyArray1, PyArray2, PyReadonlyArray1, PyReadonlyArray2, PyUntypedArrayMethods,
 };
@@ -24,18 +24,6 @@ type Arrays<'py> = (
     Bound<'py, PyArray1<i32>>,
 );
 
-fn contiguous<'a, T: numpy::Element>(
-    arrays: &'a [PyReadonlyArray1<'_, T>],
-) -> PyResult<Vec<&'a [T]>> {
-    arrays
-        .iter()
-        .map(|a| {
-            a.as_slice()
-                .map_err(|_| Error::invalid("crystal arrays must be contiguous").into())
-        })
-        .collect()
-}
-
 fn factor<'a>(args: &'a FactorArgs<'_>) -> PyResult<Factor<'a>> {
     let weights = args
         .4
@@ -43,10 +31,10 @@ fn factor<'a>(args: &'a FactorArgs<'_>) -> PyResult<Factor<'a>> {
         .map_err(|_| Error::invalid("weights must be C-contiguous"))?;
     Ok(Factor {
         count: args.4.shape()[0],
-        f: contiguous(&args.0)?,
-        e: contiguous(&args.1)?,
-        phi: contiguous(&args.2)?,
-        eps: contiguous(&args.3)?,
+        f: slices(&args.0, "crystal arrays")?,
+        e: slices(&args.1, "crystal arrays")?,
+        phi: slices(&args.2, "crystal arrays")?,
+        eps: slices(&args.3, "crystal arrays")?,
         weights,
     })
 }
@@ -74,9 +62,7 @@ fn tensor_tables<'py>(
             )
         })
         .collect();
-    let weights = Array2::from_shape_vec((count, n), product.weights)
-        .expect("count x n weights")
-        .into_pyarray(py);
+    let weights = array2(py, count, n, product.weights);
     Ok((operators, weights))
 }
 

@@ -1,16 +1,7 @@
 //! Checks of the peeling kernel. Each value checked against the outside names its source.
 use super::*;
+use crate::poly::tests::poly;
 use crate::poly::{atom, key, product, CoeffVec};
-
-fn poly(nvars: usize, terms: &[(&[i64], i128)]) -> Terms {
-    let exps = terms.iter().flat_map(|(r, _)| r.iter().copied()).collect();
-    Terms::new(
-        nvars,
-        exps,
-        CoeffVec::Small(terms.iter().map(|t| t.1).collect()),
-    )
-    .unwrap()
-}
 
 fn scaled(f: &Terms, c: i128) -> Terms {
     product(

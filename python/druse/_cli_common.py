@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import json
 import re
 import sys
 from collections.abc import Callable, Iterator, Sequence
@@ -75,9 +76,37 @@ def _rows_of(cells: Sequence[int], shape: Sequence[int]) -> list[list[int]]:
     return rows
 
 
+def _echo_json(doc: object) -> None:
+    """One compact JSON document on standard output."""
+    click.echo(json.dumps(doc, separators=(",", ":")))
+
+
+def _echo_poly(poly: druse.Poly, as_json: bool) -> None:
+    """A polynomial as contract JSON, or readably."""
+    if as_json:
+        _echo_json(poly.to_json())
+    else:
+        click.echo(str(poly))
+
+
+def _echo_terms(
+    terms: dict[tuple[int, ...], int], name: str, empty: str | None = "0 (no terms)"
+) -> None:
+    """One line ``c * name(index)`` per term, coefficients right-aligned; `empty` if none."""
+    width = max((len(str(c)) for c in terms.values()), default=1)
+    for index, c in terms.items():
+        click.echo(f"{c:>{width}} * {name}{_format_parts(index)}")
+    if not terms and empty is not None:
+        click.echo(empty)
+
+
 @contextmanager
-def _progress_bar(label: str) -> Iterator[Callable[[int, int], None]]:
-    """A click progress bar on stderr, driven by the library's progress(done, total) calls."""
+def _progress_bar(label: str, quiet: bool = False) -> Iterator[Callable[[int, int], None] | None]:
+    """A click progress bar on stderr, driven by the library's progress(done, total) calls;
+    None (no progress reports) when `quiet`."""
+    if quiet:
+        yield None
+        return
     with click.progressbar(length=1, label=label, file=sys.stderr) as bar:
         seen = [0]
 

@@ -4,32 +4,20 @@ given as files (JSON or GraphML)."""
 from __future__ import annotations
 
 import json
-from collections.abc import Sequence
 
 import click
 import numpy as np
 
 import druse
-from druse._cli_common import LETTERS, _format_parts, _library_errors, _parts, _progress_bar
-
-
-def _echo_json(doc: object) -> None:
-    click.echo(json.dumps(doc, separators=(",", ":")))
-
-
-def _trimmed(weight: Sequence[int]) -> tuple[int, ...]:
-    parts = list(weight)
-    while parts and parts[-1] == 0:
-        parts.pop()
-    return tuple(parts)
-
-
-def _echo_multiplicities(terms: dict[tuple[int, ...], int], name: str) -> None:
-    width = max((len(str(c)) for c in terms.values()), default=1)
-    for shape, c in terms.items():
-        click.echo(f"{c:>{width}} * {name}{_format_parts(shape)}")
-    if not terms:
-        click.echo("0 (no terms)")
+from druse._cli_common import (
+    LETTERS,
+    _echo_json,
+    _echo_terms,
+    _format_parts,
+    _library_errors,
+    _parts,
+    _progress_bar,
+)
 
 
 @click.command()
@@ -52,7 +40,7 @@ def lr(mu: tuple[int, ...], nu: tuple[int, ...], method: str, as_json: bool) -> 
             {"mu": list(mu), "nu": list(nu), "terms": [[list(s), c] for s, c in terms.items()]}
         )
         return
-    _echo_multiplicities(terms, "s")
+    _echo_terms(terms, "s")
 
 
 @click.command("lr-table")
@@ -66,12 +54,8 @@ def lr_table(size: int, as_json: bool, quiet: bool) -> None:
     the sum of the c. With --json: {"size", "partitions", "products", "coefficients"}, the
     coefficients nested as [mu][nu][lambda] in the order of the two partition lists.
     """
-    with _library_errors():
-        if quiet:
-            table = druse.lr_table(size)
-        else:
-            with _progress_bar(f"pairs of partitions of {size}") as update:
-                table = druse.lr_table(size, progress=update)
+    with _library_errors(), _progress_bar(f"pairs of partitions of {size}", quiet) as update:
+        table = druse.lr_table(size, progress=update)
     if as_json:
         _echo_json(
             {
@@ -107,7 +91,7 @@ def tensor(shapes: list[tuple[int, ...]], n: int, as_json: bool) -> None:
     """
     with _library_errors():
         product = druse.tensor_product(*(druse.crystal(s, n) for s in shapes))
-        parts = {_trimmed(w): c for w, c in product.decomposition().items()}
+        parts = product.decomposition()  # highest weights, trailing zeros dropped
     if as_json:
         _echo_json(
             {
@@ -120,7 +104,7 @@ def tensor(shapes: list[tuple[int, ...]], n: int, as_json: bool) -> None:
         return
     names = " x ".join(f"B{_format_parts(s)}" for s in shapes)
     click.echo(f"{names} of GL_{n}: {len(product)} vertices, {sum(parts.values())} components")
-    _echo_multiplicities(parts, "B")
+    _echo_terms(parts, "B")
 
 
 _FORMATS = click.Choice(("json", "graphml"))
@@ -184,7 +168,7 @@ def decompose(path: str, fmt: str | None, as_json: bool) -> None:
         for k, part in enumerate(druse.decompose(c)):
             try:
                 shape, _ = druse.tableau_isomorphism(c, k)
-                match, why = _trimmed(shape), None
+                match, why = shape, None
             except ValueError as err:
                 match, why = None, str(err)
             rows.append((part, match, why))

@@ -14,6 +14,9 @@ import druse
 from druse._cli_common import (
     LETTERS,
     SUMMARY_PAIRS,
+    _echo_json,
+    _echo_poly,
+    _echo_terms,
     _format_parts,
     _library_errors,
     _parts,
@@ -31,10 +34,6 @@ _BASES = {
 def _sequence(ctx: click.Context, param: click.Parameter, value: str) -> tuple[int, ...]:
     """Like `_parts`, except that ``0`` is the one-part tuple (0,): a composition or a word."""
     return (0,) if value.strip() == "0" else _parts(ctx, param, value)
-
-
-def _echo_poly(poly: druse.Poly, as_json: bool) -> None:
-    click.echo(json.dumps(poly.to_json(), separators=(",", ":")) if as_json else str(poly))
 
 
 @click.command()
@@ -127,13 +126,9 @@ def expand(
             "positive": report.positive,
             "witness": None if report.witness is None else list(report.witness),
         }
-        click.echo(json.dumps(doc, separators=(",", ":")))
+        _echo_json(doc)
         return
-    width = max((len(str(c)) for c in terms.values()), default=1)
-    for index, c in terms.items():
-        click.echo(f"{c:>{width}} * {basis}{_format_parts(index)}")
-    if not terms:
-        click.echo("0 (the zero polynomial)")
+    _echo_terms(terms, basis, empty="0 (the zero polynomial)")
     if report.witness is None:
         click.echo(f"positive: every {basis} coefficient is >= 0")
     else:
@@ -201,7 +196,7 @@ def demazure(
             "vertices": vertices,
             "character": character.to_json(),
         }
-        click.echo(json.dumps(doc, separators=(",", ":")))
+        _echo_json(doc)
         return
     named = "0 (the crystal is empty)" if alpha is None else f"key{_format_parts(alpha)}"
     click.echo(f"Demazure crystal in B{_format_parts(c.shape)} of GL_{n}")

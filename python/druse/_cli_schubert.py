@@ -8,7 +8,15 @@ from typing import IO
 import click
 
 import druse
-from druse._cli_common import _format_parts, _library_errors, _parts, _progress_bar
+from druse._cli_common import (
+    _echo_json,
+    _echo_poly,
+    _echo_terms,
+    _format_parts,
+    _library_errors,
+    _parts,
+    _progress_bar,
+)
 
 #: Pipe dreams drawn by ``druse pipes`` unless --limit says otherwise.
 DEFAULT_DRAWINGS = 3
@@ -22,10 +30,6 @@ def _perm(ctx: click.Context, param: click.Parameter, value: str) -> tuple[int, 
     return _parts(ctx, param, value)
 
 
-def _echo_json(doc: object) -> None:
-    click.echo(json.dumps(doc, separators=(",", ":")))
-
-
 @click.command()
 @click.argument("perm", callback=_perm)
 @click.option("--json", "as_json", is_flag=True, help="Print the polynomial as contract JSON.")
@@ -33,7 +37,7 @@ def schubert(perm: tuple[int, ...], as_json: bool) -> None:
     """Print the Schubert polynomial of PERM (one-line notation: 1,4,3,2 or 1432)."""
     with _library_errors():
         poly = druse.schubert(perm)
-    click.echo(json.dumps(poly.to_json(), separators=(",", ":")) if as_json else str(poly))
+    _echo_poly(poly, as_json)
 
 
 def _window(perm: tuple[int, ...], start: int, count: int) -> list[tuple[tuple[int, int], ...]]:
@@ -142,9 +146,7 @@ def schubert_keys(perm: tuple[int, ...], method: str, as_json: bool) -> None:
     if as_json:
         _echo_json({"nvars": len(perm), "terms": [[list(a), c] for a, c in terms.items()]})
         return
-    width = max((len(str(c)) for c in terms.values()), default=1)
-    for alpha, c in terms.items():
-        click.echo(f"{c:>{width}} * key{_format_parts(alpha)}")
+    _echo_terms(terms, "key")
 
 
 @click.command()
@@ -157,9 +159,7 @@ def stanley(perm: tuple[int, ...], as_json: bool) -> None:
     if as_json:
         _echo_json({"perm": list(perm), "terms": [[list(s), c] for s, c in terms.items()]})
         return
-    width = max((len(str(c)) for c in terms.values()), default=1)
-    for shape, c in terms.items():
-        click.echo(f"{c:>{width}} * s{_format_parts(shape)}")
+    _echo_terms(terms, "s")
 
 
 @click.command("schubert-all")
@@ -180,19 +180,12 @@ def schubert_all(n: int, keys: bool, output: IO[str], quiet: bool) -> None:
     --keys), permutations in lexicographic order; the progress bar goes to stderr.
     """
     with _library_errors():
-        if quiet:
-            polys = druse.all_schuberts(n)
-        else:
-            with _progress_bar(f"S_{n}: Schubert polynomials") as update:
-                polys = druse.all_schuberts(n, progress=update)
+        with _progress_bar(f"S_{n}: Schubert polynomials", quiet) as update:
+            polys = druse.all_schuberts(n, progress=update)
         expansions = None
         if keys:
-            items = list(polys.values())
-            if quiet:
-                expansions = druse.key_expansions(items)
-            else:
-                with _progress_bar(f"S_{n}: key expansions") as update:
-                    expansions = druse.key_expansions(items, progress=update)
+            with _progress_bar(f"S_{n}: key expansions", quiet) as update:
+                expansions = druse.key_expansions(list(polys.values()), progress=update)
     for k, (perm, poly) in enumerate(polys.items()):
         doc: dict[str, object] = {"permutation": list(perm), "schubert": poly.to_json()}
         if expansions is not None:

@@ -8,7 +8,6 @@ exit status (2 for malformed arguments, 1 for values the library refuses).
 
 from __future__ import annotations
 
-import json
 import sys
 
 import click
@@ -19,6 +18,7 @@ from druse._cli_common import (
     DEFAULT_LIMIT,
     LETTERS,
     SUMMARY_PAIRS,
+    _echo_poly,
     _format_parts,
     _format_tableau,
     _library_errors,
@@ -69,10 +69,7 @@ def schur(shape: tuple[int, ...], n: int, as_json: bool) -> None:
     """Print the Schur polynomial s_SHAPE(x1, ..., xN)."""
     with _library_errors():
         poly = druse.schur(shape, n)
-    if as_json:
-        click.echo(json.dumps(poly.to_json(), separators=(",", ":")))
-    else:
-        click.echo(str(poly))
+    _echo_poly(poly, as_json)
 
 
 @main.command()

@@ -251,3 +251,14 @@ def test_huge_state_graph_is_refused_quickly() -> None:
     w = (1, *range(30, 1, -1))
     with pytest.raises(druse.TooLargeError, match="state graph"):
         druse.count_pipe_dreams(w)
+
+
+def test_streaming_from_a_start_index_is_the_tail() -> None:
+    # the chunk at `start` is found by counting; it must equal the tail of the full listing
+    # (Woo 2004: 1 6 5 4 3 2 has C_5 = 42 pipe dreams, OEIS A000108)
+    w = (1, 6, 5, 4, 3, 2)
+    full = druse.pipe_dreams(w).masks
+    tail = np.concatenate(list(druse.iter_pipe_dreams(w, chunk=5, start=17)))
+    assert len(full) == 42
+    assert np.array_equal(tail, full[17:])
+    assert list(druse.iter_pipe_dreams(w, start=42)) == []

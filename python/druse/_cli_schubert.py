@@ -41,18 +41,11 @@ def schubert(perm: tuple[int, ...], as_json: bool) -> None:
 
 
 def _window(perm: tuple[int, ...], start: int, count: int) -> list[tuple[tuple[int, int], ...]]:
-    """Pipe dreams start..start+count-1 of PERM, streamed: nothing before them is kept."""
-    n = len(perm)
-    out: list[tuple[tuple[int, int], ...]] = []
-    seen = 0
-    for block in druse.iter_pipe_dreams(perm, chunk=max(1, min(start + count, 1 << 20))):
-        for row in block:
-            if seen >= start:
-                out.append(druse.pipe_dream_of_mask(row, n))
-            seen += 1
-            if len(out) == count:
-                return out
-    return out
+    """Pipe dreams start..start+count-1 of PERM, streamed from `start` on."""
+    if count == 0:
+        return []
+    block = next(druse.iter_pipe_dreams(perm, chunk=count, start=start), None)
+    return [] if block is None else [druse.pipe_dream_of_mask(row, len(perm)) for row in block]
 
 
 @click.command("pipe-dreams")

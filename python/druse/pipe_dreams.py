@@ -26,7 +26,7 @@ import numpy as np
 import numpy.typing as npt
 
 from druse import _core
-from druse._check import check_budget, check_positive_int
+from druse._check import check_budget, check_nonnegative_int, check_positive_int
 from druse._pipe_cells import (
     Crosses,
     compatible_sequence,
@@ -239,15 +239,18 @@ def pipe_dreams(perm: Sequence[int]) -> PipeDreams:
     return PipeDreams(w, model.enumerate())
 
 
-def iter_pipe_dreams(perm: Sequence[int], chunk: int = 1 << 20) -> Iterator[Masks]:
-    """The masks of the pipe dreams of w in ascending order, as (at most chunk, W) uint64 arrays.
+def iter_pipe_dreams(perm: Sequence[int], chunk: int = 1 << 20, start: int = 0) -> Iterator[Masks]:
+    """The masks of the pipe dreams of w in ascending order, as (at most chunk, W) uint64 arrays,
+    beginning with the pipe dream of index ``start``.
 
-    Streams in constant memory: each chunk is found by counting, not by listing what precedes it.
+    Streams in constant memory: each chunk is found by counting, not by listing what precedes it,
+    so a late ``start`` costs no more than an early one.
     """
     w = _perm(perm)
     chunk = check_positive_int(chunk, "chunk")
+    first = check_nonnegative_int(start, "start")
     check_budget(chunk * 8 * max(1, -(-len(w) * (len(w) - 1) // 128)), "a chunk", "lower chunk")
     model = _core.PipeDreamModel(list(w))
     total = int(model.count())
-    for start in range(0, total, chunk):
-        yield model.range(start, min(chunk, total - start))
+    for position in range(first, total, chunk):
+        yield model.range(position, min(chunk, total - position))
